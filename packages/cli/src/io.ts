@@ -1,0 +1,16 @@
+/** Where a command writes; tests pass in-memory sinks, the binary passes the process streams. */
+export interface CliIo {
+  stdout: (text: string) => void;
+  stderr: (text: string) => void;
+  /** Whether standard output is a terminal (progress bars and colour only then). */
+  isTty: boolean;
+}
+
+/** The process's own streams. */
+export function createProcessIo(): CliIo {
+  return {
+    stdout: (text) => process.stdout.write(text),
+    stderr: (text) => process.stderr.write(text),
+    isTty: Boolean(process.stdout.isTTY),
+  };
+}

@@ -1,0 +1,36 @@
+export { InvalidArgumentError, LeadlineError, UnreadableInputError } from './errors.js';
+export type { Rejection, RejectionCode } from './model/rejection.js';
+export { formatRejection } from './model/rejection.js';
+export type {
+  BearingReference,
+  DepthSignDecision,
+  Fix,
+  FixColumnName,
+  FixColumns,
+  LogFormat,
+  Provenance,
+  Track,
+  TrackRole,
+  Waypoint,
+} from './model/track.js';
+export { createFixColumns, FIX_COLUMN_NAMES, getFix, hasColumnValues } from './model/track.js';
+export { TrackBuilder } from './model/track-builder.js';
+export type { LengthUnit, SpeedUnit } from './model/units.js';
+export {
+  degToRad,
+  fromMetres,
+  fromMetresPerSecond,
+  METRES_PER_FATHOM,
+  METRES_PER_FOOT,
+  METRES_PER_NAUTICAL_MILE,
+  METRES_PER_US_SURVEY_FOOT,
+  MPS_PER_KNOT,
+  normaliseAzimuthDeg,
+  normaliseLongitudeDeg,
+  parseLengthUnit,
+  parseSpeedUnit,
+  radToDeg,
+  toMetres,
+  toMetresPerSecond,
+} from './model/units.js';
+export { LEADLINE_VERSION } from './version.js';
