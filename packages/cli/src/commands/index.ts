@@ -1,0 +1,15 @@
+import type { Command } from 'commander';
+import type { CliIo } from '../io.js';
+
+/** What every verb's registration receives: where to write, and where to leave its exit code. */
+export interface CommandContext {
+  io: CliIo;
+  /** The verb's action sets this; `main` returns it. */
+  exitCode: number;
+}
+
+/** Registers one verb on the program. Each `commands/<verb>.ts` exports one of these. */
+export type RegisterCommand = (program: Command, context: CommandContext) => void;
+
+/** Every verb, in the order `leadline --help` lists them. Add a verb by adding its register function here. */
+export const COMMANDS: readonly RegisterCommand[] = [];
