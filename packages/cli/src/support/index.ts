@@ -1,0 +1,13 @@
+export type { CommonOptions } from './common-options.js';
+export { addCommonOptions, parseColumnMap, parsePositiveInteger } from './common-options.js';
+export type { LeadlineConfig } from './load-config.js';
+export { CONFIG_FILE, ConfigFileError, ConfigSchema, loadConfig } from './load-config.js';
+export type { RunManifest, WrittenOutput } from './output-folder.js';
+export { MANIFEST_FILE, OutputFolder, OutputRefusedError, sha256Hex } from './output-folder.js';
+export { printJson } from './print-json.js';
+export type { Progress } from './progress.js';
+export { startProgress } from './progress.js';
+export { readInputBytes } from './read-input.js';
+export type { InputFile, ResolvedInputs } from './resolve-inputs.js';
+export { resolveInputs } from './resolve-inputs.js';
+export { runPool } from './run-pool.js';

@@ -1,0 +1,110 @@
+import { createHash } from 'node:crypto';
+import { existsSync, realpathSync } from 'node:fs';
+import { mkdir, writeFile } from 'node:fs/promises';
+import { dirname, join, parse, relative, resolve } from 'node:path';
+import { LEADLINE_VERSION } from '@leadline/core';
+import type { InputFile } from './resolve-inputs.js';
+
+/** Raised when writing would overwrite an input, or an output without `--force`. */
+export class OutputRefusedError extends Error {
+  override readonly name = 'OutputRefusedError';
+}
+
+/** One file the run wrote, as the manifest lists it. */
+export interface WrittenOutput {
+  path: string;
+  bytes: number;
+  sha256: string;
+}
+
+/** The run manifest written beside the outputs as `leadline-run.json`. */
+export interface RunManifest {
+  leadlineVersion: string;
+  verb: string;
+  startedAt: string;
+  finishedAt: string;
+  settings: Record<string, unknown>;
+  inputs: Array<{ path: string; bytes: number; sha256: string }>;
+  outputs: WrittenOutput[];
+}
+
+/** The manifest's file name. */
+export const MANIFEST_FILE = 'leadline-run.json';
+
+/** SHA-256 of bytes, as lowercase hex. */
+export function sha256Hex(bytes: Uint8Array | string): string {
+  return createHash('sha256').update(bytes).digest('hex');
+}
+
+/**
+ * The `--out` folder of one run: mirrors the inputs' folder structure, never overwrites an input,
+ * refuses to overwrite an existing output unless `force`, and writes the run manifest at the end.
+ */
+export class OutputFolder {
+  readonly root: string;
+  readonly #force: boolean;
+  readonly #inputPaths: Set<string>;
+  readonly #inputs: RunManifest['inputs'] = [];
+  readonly #outputs: WrittenOutput[] = [];
+  readonly #startedAt: Date;
+
+  constructor(root: string, options: { force: boolean; inputs: readonly InputFile[]; now?: Date }) {
+    this.root = resolve(root);
+    this.#force = options.force;
+    this.#inputPaths = new Set(options.inputs.filter((i) => i.path !== '-').map((i) => realPathOrSelf(i.path)));
+    this.#startedAt = options.now ?? new Date();
+  }
+
+  /** The output path for an input with a new extension (e.g. `.geojson`), mirroring its relative folder. */
+  pathFor(input: InputFile, extension: string, suffix = ''): string {
+    const parsed = parse(input.relativePath);
+    return join(this.root, parsed.dir, `${parsed.name}${suffix}${extension}`);
+  }
+
+  /** Records an input's size and SHA-256 for the manifest. */
+  recordInput(input: InputFile, bytes: Uint8Array): void {
+    this.#inputs.push({ path: input.displayName, bytes: bytes.byteLength, sha256: sha256Hex(bytes) });
+  }
+
+  /** Writes one output file; throws `OutputRefusedError` instead of overwriting an input or, without force, an output. */
+  async write(path: string, content: string | Uint8Array): Promise<WrittenOutput> {
+    const absolute = resolve(path);
+    if (this.#inputPaths.has(realPathOrSelf(absolute))) {
+      throw new OutputRefusedError(`${absolute}: refusing to overwrite an input file; choose another --out folder`);
+    }
+    if (!this.#force && existsSync(absolute)) {
+      throw new OutputRefusedError(`${absolute}: already exists; add --force to overwrite outputs`);
+    }
+    await mkdir(dirname(absolute), { recursive: true });
+    await writeFile(absolute, content);
+    const bytes = typeof content === 'string' ? Buffer.byteLength(content) : content.byteLength;
+    const written = { path: relative(this.root, absolute), bytes, sha256: sha256Hex(content) };
+    this.#outputs.push(written);
+    return written;
+  }
+
+  /** Writes `leadline-run.json` listing inputs, outputs and settings; returns its path. */
+  async writeManifest(verb: string, settings: Record<string, unknown>, now: Date = new Date()): Promise<string> {
+    const manifest: RunManifest = {
+      leadlineVersion: LEADLINE_VERSION,
+      verb,
+      startedAt: this.#startedAt.toISOString(),
+      finishedAt: now.toISOString(),
+      settings,
+      inputs: [...this.#inputs].sort((a, b) => a.path.localeCompare(b.path)),
+      outputs: [...this.#outputs].sort((a, b) => a.path.localeCompare(b.path)),
+    };
+    const path = join(this.root, MANIFEST_FILE);
+    await mkdir(this.root, { recursive: true });
+    await writeFile(path, `${JSON.stringify(manifest, null, 2)}\n`);
+    return path;
+  }
+}
+
+function realPathOrSelf(path: string): string {
+  try {
+    return realpathSync(path);
+  } catch {
+    return resolve(path);
+  }
+}

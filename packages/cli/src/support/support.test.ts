@@ -1,0 +1,128 @@
+import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { LEADLINE_VERSION } from '@leadline/core';
+import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import { parseColumnMap } from './common-options.js';
+import { loadConfig } from './load-config.js';
+import { MANIFEST_FILE, OutputFolder, sha256Hex } from './output-folder.js';
+import { resolveInputs } from './resolve-inputs.js';
+import { runPool } from './run-pool.js';
+
+let dir: string;
+beforeEach(() => {
+  dir = mkdtempSync(join(tmpdir(), 'leadline-cli-'));
+  mkdirSync(join(dir, 'season', 'day1'), { recursive: true });
+  mkdirSync(join(dir, 'season', '.hidden'), { recursive: true });
+  writeFileSync(join(dir, 'season', 'day1', 'dive1.csv'), 'a\n');
+  writeFileSync(join(dir, 'season', 'day1', 'dive2.gpx'), '<gpx/>\n');
+  writeFileSync(join(dir, 'season', '.hidden', 'skip.csv'), 'x\n');
+});
+afterEach(() => rmSync(dir, { recursive: true, force: true }));
+
+describe('resolveInputs', () => {
+  it('recurses folders, skips hidden ones and keeps paths relative to the folder given', async () => {
+    const { inputs, problems } = await resolveInputs(['season'], dir);
+    expect(problems).toEqual([]);
+    expect(inputs.map((i) => i.relativePath)).toEqual([join('day1', 'dive1.csv'), join('day1', 'dive2.gpx')]);
+    expect(inputs[0]?.displayName).toBe(join('season', 'day1', 'dive1.csv'));
+  });
+
+  it('expands globs from their fixed prefix and removes duplicates', async () => {
+    const { inputs } = await resolveInputs(['season/**/*.csv', 'season/day1/dive1.csv'], dir);
+    expect(inputs).toHaveLength(1);
+    expect(inputs[0]?.relativePath).toBe(join('day1', 'dive1.csv'));
+  });
+
+  it('reports each argument that matched nothing and accepts - for standard input', async () => {
+    const { inputs, problems } = await resolveInputs(['nope.csv', 'season/*.kml', '-'], dir);
+    expect(problems).toEqual(['nope.csv: no such file or folder', 'season/*.kml: the pattern matches no file']);
+    expect(inputs.map((i) => i.path)).toEqual(['-']);
+  });
+});
+
+describe('OutputFolder', () => {
+  it('mirrors the input folders, writes a manifest with SHA-256 of inputs and outputs', async () => {
+    const { inputs } = await resolveInputs(['season'], dir);
+    const input = inputs[0];
+    if (input === undefined) throw new Error('no input');
+    const out = new OutputFolder(join(dir, 'out'), { force: false, inputs });
+    out.recordInput(input, new TextEncoder().encode('a\n'));
+    const target = out.pathFor(input, '.geojson');
+    expect(target).toBe(join(dir, 'out', 'day1', 'dive1.geojson'));
+    await out.write(target, '{}\n');
+    const manifest = JSON.parse(readFileSync(await out.writeManifest('convert', { to: 'geojson' }), 'utf8'));
+    expect(manifest.leadlineVersion).toBe(LEADLINE_VERSION);
+    expect(manifest.inputs[0].sha256).toBe(sha256Hex('a\n'));
+    expect(manifest.outputs).toEqual([{ path: join('day1', 'dive1.geojson'), bytes: 3, sha256: sha256Hex('{}\n') }]);
+    expect(manifest.settings).toEqual({ to: 'geojson' });
+    expect(readFileSync(join(dir, 'out', MANIFEST_FILE), 'utf8').endsWith('\n')).toBe(true);
+  });
+
+  it('refuses to overwrite an input, even with --force', async () => {
+    const { inputs } = await resolveInputs(['season'], dir);
+    const out = new OutputFolder(join(dir, 'season'), { force: true, inputs });
+    await expect(out.write(join(dir, 'season', 'day1', 'dive1.csv'), 'b')).rejects.toThrow(
+      /refusing to overwrite an input/,
+    );
+    expect(readFileSync(join(dir, 'season', 'day1', 'dive1.csv'), 'utf8')).toBe('a\n');
+  });
+
+  it('refuses to overwrite an existing output without --force, and does with it', async () => {
+    const target = join(dir, 'out', 'x.csv');
+    await new OutputFolder(join(dir, 'out'), { force: false, inputs: [] }).write(target, 'one');
+    await expect(new OutputFolder(join(dir, 'out'), { force: false, inputs: [] }).write(target, 'two')).rejects.toThrow(
+      /--force/,
+    );
+    await new OutputFolder(join(dir, 'out'), { force: true, inputs: [] }).write(target, 'three');
+    expect(readFileSync(target, 'utf8')).toBe('three');
+  });
+});
+
+describe('parseColumnMap', () => {
+  it('reads key=column pairs and refuses a pair without =', () => {
+    expect(parseColumnMap('latDeg=Lat (deg), lonDeg=Lon')).toEqual({ latDeg: 'Lat (deg)', lonDeg: 'Lon' });
+    expect(() => parseColumnMap('latDeg')).toThrow(/not key=column/);
+  });
+});
+
+describe('loadConfig', () => {
+  it('returns an empty configuration when no file is present, and reads one that is', async () => {
+    expect(await loadConfig(undefined, dir)).toEqual({ config: {} });
+    writeFileSync(join(dir, 'leadline.config.json'), JSON.stringify({ defaults: { crs: 'EPSG:25832' } }));
+    expect((await loadConfig(undefined, dir)).config.defaults?.crs).toBe('EPSG:25832');
+  });
+
+  it('names the file and the bad key', async () => {
+    writeFileSync(join(dir, 'bad.json'), JSON.stringify({ defaults: { jobs: -1 }, colums: {} }));
+    await expect(loadConfig('bad.json', dir)).rejects.toThrow(/bad\.json: .*defaults\.jobs.*colums/s);
+  });
+
+  it('says when an explicit file is missing or not JSON', async () => {
+    await expect(loadConfig('missing.json', dir)).rejects.toThrow(/missing\.json: cannot read/);
+    writeFileSync(join(dir, 'broken.json'), '{ nope');
+    await expect(loadConfig('broken.json', dir)).rejects.toThrow(/broken\.json: not valid JSON/);
+  });
+});
+
+describe('runPool', () => {
+  it('keeps results in input order, never runs more than `jobs` at once, and keeps failures per item', async () => {
+    let running = 0;
+    let peak = 0;
+    const results = await runPool([30, 10, 20, 0], 2, async (ms, index) => {
+      running++;
+      peak = Math.max(peak, running);
+      await new Promise((r) => setTimeout(r, ms));
+      running--;
+      if (index === 3) throw new Error('bad file');
+      return index;
+    });
+    expect(peak).toBe(2);
+    expect(results.slice(0, 3)).toEqual([
+      { ok: true, value: 0 },
+      { ok: true, value: 1 },
+      { ok: true, value: 2 },
+    ]);
+    expect(results[3]?.ok).toBe(false);
+  });
+});
