@@ -33,4 +33,15 @@ export {
   toMetres,
   toMetresPerSecond,
 } from './model/units.js';
+export type { SoundSpeedSample, TemperatureScale, Unesco1983Options } from './resolve/sound-speed.js';
+export {
+  depthFromPressureUnesco1983,
+  harmonicMeanSoundSpeed,
+  pressureFromDepthUnesco1983,
+  soundSpeedFreshBilaniukWong1993,
+  soundSpeedFreshMarczak1997,
+  soundSpeedMackenzie1981,
+  soundSpeedUnesco1983,
+  soundSpeedUnesco1983AtDepth,
+} from './resolve/sound-speed.js';
 export { LEADLINE_VERSION } from './version.js';
