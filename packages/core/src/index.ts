@@ -1,4 +1,19 @@
+export type { ConvertToWgs84Result } from './crs/convert-to-wgs84.js';
+export { convertToWgs84 } from './crs/convert-to-wgs84.js';
+export type { ReprojectedColumns, Reprojection } from './crs/create-reprojection.js';
+export { createReprojection } from './crs/create-reprojection.js';
+export type { CrsMethod, ResolveCrsOptions, ResolvedCrs } from './crs/resolve-crs.js';
+export { parseCrsCode, resolveCrs } from './crs/resolve-crs.js';
 export { InvalidArgumentError, LeadlineError, UnreadableInputError } from './errors.js';
+export type { LocalFrame } from './geodesy/create-local-frame.js';
+export { createLocalFrame } from './geodesy/create-local-frame.js';
+export type { DirectGeodesicResult, GeodesicPolygonAreaResult, InverseGeodesicResult } from './geodesy/geodesic.js';
+export {
+  directGeodesic,
+  geodesicDistanceM,
+  geodesicPolygonArea,
+  inverseGeodesic,
+} from './geodesy/geodesic.js';
 export type { Rejection, RejectionCode } from './model/rejection.js';
 export { formatRejection } from './model/rejection.js';
 export type {

@@ -1,0 +1,52 @@
+/**
+ * The one module that reads package data from `epsg-index` (about 8 000 CRS records). Core does no
+ * user-file I/O; resolving bundled package data through `createRequire` is the exception, and it
+ * stays here. Single entries load on demand (`epsg-index/s/<code>.json`, a few kB each); the full
+ * index (8 MB) loads only for search and area-of-use queries, once, on first use.
+ */
+import { createRequire } from 'node:module';
+
+/** One record of the `epsg-index` package. */
+export interface EpsgRecord {
+  code: string;
+  /** `CRS-PROJCRS`, `CRS-GEOGCRS`, `CRS-COMPOUNDCRS`, ... */
+  kind: string;
+  name: string;
+  wkt?: string;
+  /** PROJ.4 definition; absent for a few engineering and derived CRSs. */
+  proj4?: string;
+  /** Area of use as `[north, west, south, east]` in degrees (west > east crosses the antimeridian). */
+  bbox?: [number, number, number, number];
+  unit?: string;
+  area?: string;
+  /** Accuracy in metres of the CRS's transformation to WGS 84, when the dataset gives one. */
+  accuracy?: number | null;
+}
+
+const requireFromHere = createRequire(import.meta.url);
+const entryCache = new Map<string, EpsgRecord | null>();
+let fullIndex: EpsgRecord[] | undefined;
+
+/** Loads one EPSG record by numeric code; `undefined` when the package has no such code. */
+export function loadEpsgRecord(code: string): EpsgRecord | undefined {
+  if (!/^\d{1,6}$/.test(code)) return undefined;
+  const cached = entryCache.get(code);
+  if (cached !== undefined) return cached ?? undefined;
+  let record: EpsgRecord | null = null;
+  try {
+    record = requireFromHere(`epsg-index/s/${code}.json`) as EpsgRecord;
+  } catch {
+    record = null;
+  }
+  entryCache.set(code, record);
+  return record ?? undefined;
+}
+
+/** Loads (once) and returns every EPSG record, for search and area-of-use queries. */
+export function loadEpsgIndex(): readonly EpsgRecord[] {
+  if (fullIndex === undefined) {
+    const all = requireFromHere('epsg-index/all.json') as Record<string, EpsgRecord>;
+    fullIndex = Object.values(all);
+  }
+  return fullIndex;
+}
