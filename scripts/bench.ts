@@ -3,7 +3,9 @@
 const benchmarks: Array<{ name: string; run: () => Promise<string> }> = [];
 
 if (benchmarks.length === 0) {
-  process.stdout.write('bench: no benchmarks yet (they arrive with the readers, reprojection and geodesy work); nothing measured.\n');
+  process.stdout.write(
+    'bench: no benchmarks yet (they arrive with the readers, reprojection and geodesy work); nothing measured.\n',
+  );
 }
 for (const benchmark of benchmarks) {
   process.stdout.write(`${benchmark.name}: ${await benchmark.run()}\n`);
