@@ -1,5 +1,6 @@
 import type { Command } from 'commander';
 import type { CliIo } from '../io.js';
+import { registerCompletion } from './completion.js';
 
 /** What every verb's registration receives: where to write, and where to leave its exit code. */
 export interface CommandContext {
@@ -12,4 +13,4 @@ export interface CommandContext {
 export type RegisterCommand = (program: Command, context: CommandContext) => void;
 
 /** Every verb, in the order `leadline --help` lists them. Add a verb by adding its register function here. */
-export const COMMANDS: readonly RegisterCommand[] = [];
+export const COMMANDS: readonly RegisterCommand[] = [registerCompletion];

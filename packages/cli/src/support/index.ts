@@ -11,3 +11,5 @@ export { readInputBytes } from './read-input.js';
 export type { InputFile, ResolvedInputs } from './resolve-inputs.js';
 export { resolveInputs } from './resolve-inputs.js';
 export { runPool } from './run-pool.js';
+export type { TaskPool } from './task-pool.js';
+export { createTaskPool } from './task-pool.js';
