@@ -48,6 +48,27 @@ export {
   toMetres,
   toMetresPerSecond,
 } from './model/units.js';
+export type { PathSoundSpeed } from './resolve/create-path-sound-speed.js';
+export { createPathSoundSpeed } from './resolve/create-path-sound-speed.js';
+export type { MagneticDeclination } from './resolve/magnetic-declination.js';
+export { decimalYearFromTimeMs, magneticDeclination } from './resolve/magnetic-declination.js';
+export type { ResolveSetup, ResolveSetupInput, WaterSoundSpeed } from './resolve/resolve-setup.js';
+export { parseResolveSetup, resolveSetupSchema } from './resolve/resolve-setup.js';
+export type {
+  AppliedSetup,
+  ResolveComparison,
+  ResolvedProvenance,
+  ResolveRejection,
+  ResolveResult,
+  ResolveTrackOptions,
+} from './resolve/resolve-track.js';
+export { resolveTrack } from './resolve/resolve-track.js';
+export type {
+  ResolveRejectionReason,
+  VehiclePositionInput,
+  VehiclePositionResult,
+} from './resolve/solve-vehicle-position.js';
+export { solveVehiclePosition } from './resolve/solve-vehicle-position.js';
 export type { SoundSpeedSample, TemperatureScale, Unesco1983Options } from './resolve/sound-speed.js';
 export {
   depthFromPressureUnesco1983,
@@ -59,4 +80,6 @@ export {
   soundSpeedUnesco1983,
   soundSpeedUnesco1983AtDepth,
 } from './resolve/sound-speed.js';
+export type { MovementSummary } from './resolve/summarise-movement.js';
+export { summariseMovement } from './resolve/summarise-movement.js';
 export { LEADLINE_VERSION } from './version.js';
