@@ -1,0 +1,346 @@
+import { SaxesParser, type SaxesTagPlain } from 'saxes';
+import type { Rejection } from '../model/rejection.js';
+import type { DepthSignDecision, Fix, TrackRole, Waypoint } from '../model/track.js';
+import { normaliseAzimuthDeg } from '../model/units.js';
+import { collectReadEvents } from './collect-read-events.js';
+import { decodeLogText } from './decode-log-text.js';
+import type { LogInput, LogReadResult, ReadOptions } from './log-read-result.js';
+import { parseCoordinate } from './parse-coordinate.js';
+import { LogTimeParser } from './parse-log-time.js';
+import type { LogTextInput } from './read-csv.js';
+import { refusedLog } from './read-csv.js';
+import type { ReadEvent } from './read-event.js';
+import { findForbiddenXml } from './refuse-forbidden-xml.js';
+
+/** Text fed to the XML parser at a time: keeps the event queue, not the file, in memory. */
+const FEED_CHARS = 1 << 20;
+
+const DEPTH_NAMES = /^(depth|dpt|waterdepth|depthm|depth_m)$/i;
+const HEADING_NAMES = /^(heading|hdg|yaw)$/i;
+const SPEED_NAMES = /^(speed|sog)$/i;
+const RANGE_NAMES = /^(slantrange|slant_range|range)$/i;
+const BEARING_NAMES = /^(bearing|brg)$/i;
+const SURFACE_TRACK = /surface|ship|vessel|boat|topside/i;
+const UNDERWATER_HINT = /\b(rov|auv|vehicle|diver|dive|transponder|beacon|underwater)\b/i;
+
+interface PointState {
+  kind: 'trkpt' | 'rtept' | 'wpt';
+  line: number;
+  column: number;
+  lat: string;
+  lon: string;
+  ele?: string;
+  time?: string;
+  name?: string;
+  desc?: string;
+  depth?: string;
+  heading?: string;
+  speed?: string;
+  range?: string;
+  bearing?: string;
+  fix?: string;
+}
+
+interface TrackStats {
+  name?: string;
+  type?: string;
+  role: TrackRole;
+  opened: boolean;
+  eleCount: number;
+  elePositive: number;
+  depthCount: number;
+  isRoute: boolean;
+}
+
+/**
+ * Streams a GPX 1.1 or 1.0 log as read events: each `trk` and `rte` becomes a track (role
+ * `surface` when its name or type says surface unit, ship or vessel), each `trkseg` a segment,
+ * each `wpt` a waypoint. Depth comes from an extension element named like depth in any namespace
+ * (positive down), else from `ele` negated; a vehicle track whose `ele` is all positive is reported
+ * as doubtful, never silently flipped. Heading, speed, slant range and bearing are taken from
+ * extension (or GPX 1.0 `course`/`speed`) elements. Refuses DOCTYPE entity declarations before
+ * parsing (`forbidden-xml-construct`). Rejections: `malformed-xml` (reading stops; earlier points
+ * stay), `missing-value` (a track point without time), `unparsable-coordinate`,
+ * `latitude-out-of-range`, `longitude-out-of-range`, `unparsable-time`, `time-out-of-range`,
+ * `unparsable-number`.
+ */
+export function* readGpxEvents(input: LogTextInput, options: ReadOptions = {}): Generator<ReadEvent> {
+  const file = input.fileName;
+  const times = new LogTimeParser('UTC');
+  const queue: ReadEvent[] = [];
+  const parser = new SaxesParser({ xmlns: false, position: true, fileName: file });
+  let rowCount = 0;
+  let version = '';
+  let failed = false;
+  const stack: string[] = [];
+  let point: PointState | undefined;
+  let track: TrackStats | undefined;
+  const trackStats: TrackStats[] = [];
+  let text = '';
+  let waypointCount = 0;
+  const reject = (line: number, code: Rejection['code'], expected: string, found: string, column?: number) => {
+    queue.push({
+      kind: 'rejection',
+      rejection:
+        column === undefined ? { file, line, code, expected, found } : { file, line, column, code, expected, found },
+    });
+  };
+  const openTrackIfNeeded = () => {
+    if (track === undefined || track.opened) return;
+    track.opened = true;
+    const label = `${track.name ?? ''} ${track.type ?? ''}`;
+    if (options.role === undefined && SURFACE_TRACK.test(label)) track.role = 'surface';
+    const event: ReadEvent = { kind: 'track', role: track.role };
+    if (track.name !== undefined) event.name = track.name;
+    queue.push(event);
+  };
+  parser.on('error', (error) => {
+    if (failed) return;
+    failed = true;
+    rowCount++;
+    reject(
+      parser.line,
+      'malformed-xml',
+      'well-formed XML',
+      error.message.replace(/^[^:]*:\d+:\d+: /, ''),
+      parser.column,
+    );
+  });
+  parser.on('opentag', (tag: SaxesTagPlain) => {
+    const local = localName(tag.name);
+    const parent = stack[stack.length - 1];
+    stack.push(local);
+    text = '';
+    if (stack.length === 1) {
+      version = tag.attributes.version ?? '';
+      if (local !== 'gpx') reject(parser.line, 'unknown-format', 'a <gpx> root element', `<${tag.name}>`);
+      return;
+    }
+    if (local === 'trk' || local === 'rte') {
+      track = {
+        role: options.role ?? 'vehicle',
+        opened: false,
+        eleCount: 0,
+        elePositive: 0,
+        depthCount: 0,
+        isRoute: local === 'rte',
+      };
+      trackStats.push(track);
+      return;
+    }
+    if (local === 'trkseg') {
+      openTrackIfNeeded();
+      queue.push({ kind: 'segment' });
+      return;
+    }
+    if (
+      (local === 'trkpt' && parent === 'trkseg') ||
+      (local === 'rtept' && parent === 'rte') ||
+      (local === 'wpt' && parent === 'gpx')
+    ) {
+      if (local !== 'wpt') openTrackIfNeeded();
+      point = {
+        kind: local,
+        line: parser.line,
+        column: parser.column,
+        lat: tag.attributes.lat ?? '',
+        lon: tag.attributes.lon ?? '',
+      };
+    }
+  });
+  parser.on('text', (t) => {
+    text += t;
+  });
+  parser.on('cdata', (t) => {
+    text += t;
+  });
+  parser.on('closetag', (tag) => {
+    if (failed) return;
+    const local = localName(tag.name);
+    stack.pop();
+    const value = text.trim();
+    text = '';
+    if (point !== undefined) {
+      if (local === point.kind) {
+        rowCount++;
+        finishPoint(point);
+        point = undefined;
+        return;
+      }
+      if (local === 'ele') point.ele = value;
+      else if (local === 'time') point.time = value;
+      else if (local === 'name') point.name = value;
+      else if (local === 'desc') point.desc = value;
+      else if (local === 'fix') point.fix = value;
+      else if (DEPTH_NAMES.test(local)) point.depth = value;
+      else if (HEADING_NAMES.test(local)) point.heading = value;
+      else if (SPEED_NAMES.test(local)) point.speed = value;
+      else if (RANGE_NAMES.test(local)) point.range = value;
+      else if (BEARING_NAMES.test(local)) point.bearing = value;
+      return;
+    }
+    if (track !== undefined) {
+      const parent = stack[stack.length - 1];
+      if ((parent === 'trk' || parent === 'rte') && local === 'name') track.name = value;
+      if ((parent === 'trk' || parent === 'rte') && local === 'type') track.type = value;
+      if (local === 'trk' || local === 'rte') {
+        openTrackIfNeeded();
+        queue.push({ kind: 'depth-sign', decision: decideGpxDepthSign(track, trackStats) });
+        track = undefined;
+      }
+    }
+  });
+  const finishPoint = (p: PointState) => {
+    const lat = parseCoordinate(p.lat, 'lat');
+    if (!lat.ok)
+      return reject(
+        p.line,
+        p.lat === '' ? 'missing-value' : lat.code,
+        `a lat attribute: ${lat.expected}`,
+        `"${p.lat}"`,
+      );
+    const lon = parseCoordinate(p.lon, 'lon');
+    if (!lon.ok)
+      return reject(
+        p.line,
+        p.lon === '' ? 'missing-value' : lon.code,
+        `a lon attribute: ${lon.expected}`,
+        `"${p.lon}"`,
+      );
+    let timeMs = Number.NaN;
+    if (p.time !== undefined && p.time !== '') {
+      const t = times.parseDateTime(p.time);
+      if (!t.ok) return reject(p.line, t.code, `<time>: ${t.expected}`, `"${p.time}"`);
+      timeMs = t.timeMs;
+    } else if (p.kind === 'trkpt') {
+      return reject(p.line, 'missing-value', 'a <time> in every track point', 'no <time>');
+    }
+    const numbers: Record<string, number> = {};
+    for (const [key, raw] of [
+      ['ele', p.ele],
+      ['depth', p.depth],
+      ['heading', p.heading],
+      ['speed', p.speed],
+      ['range', p.range],
+      ['bearing', p.bearing],
+    ] as const) {
+      if (raw === undefined || raw === '') continue;
+      const n = Number(raw);
+      if (!Number.isFinite(n)) {
+        return reject(
+          p.line,
+          /^[+-]?(nan|inf)/i.test(raw) ? 'non-finite-value' : 'unparsable-number',
+          `a number in <${key}>`,
+          `"${raw}"`,
+        );
+      }
+      numbers[key] = n;
+    }
+    let depthM = Number.NaN;
+    if (numbers.depth !== undefined) depthM = numbers.depth;
+    else if (numbers.ele !== undefined) depthM = -numbers.ele + 0;
+    if (p.kind === 'wpt') {
+      const waypoint: Waypoint = {
+        name: p.name ?? `waypoint ${++waypointCount}`,
+        latDeg: lat.deg,
+        lonDeg: lon.deg,
+        depthM,
+        timeMs,
+        sourceLine: p.line,
+      };
+      if (p.desc !== undefined) waypoint.description = p.desc;
+      queue.push({ kind: 'waypoint', waypoint });
+      return;
+    }
+    if (track !== undefined) {
+      if (numbers.depth !== undefined) track.depthCount++;
+      else if (numbers.ele !== undefined) {
+        track.eleCount++;
+        if (numbers.ele > 0) track.elePositive++;
+      }
+    }
+    const fix: Fix = { timeMs, latDeg: lat.deg, lonDeg: lon.deg };
+    if (!Number.isNaN(depthM)) fix.depthM = depthM;
+    if (numbers.heading !== undefined) fix.headingDeg = normaliseAzimuthDeg(numbers.heading);
+    if (numbers.speed !== undefined) fix.speedMps = numbers.speed;
+    if (numbers.range !== undefined) fix.slantRangeM = numbers.range;
+    if (numbers.bearing !== undefined) fix.bearingDeg = normaliseAzimuthDeg(numbers.bearing);
+    queue.push({ kind: 'fix', fix, line: p.line });
+  };
+  for (const chunk of input.chunks) {
+    for (let at = 0; at < chunk.length && !failed; at += FEED_CHARS) {
+      parser.write(chunk.slice(at, at + FEED_CHARS));
+      yield* queue;
+      queue.length = 0;
+    }
+    if (failed) break;
+  }
+  if (!failed) parser.close();
+  yield* queue;
+  queue.length = 0;
+  if (trackStats.some((t) => t.isRoute))
+    yield { kind: 'note', text: 'routes are read as tracks without times (planned lines, not logged fixes)' };
+  for (const t of trackStats) {
+    if (
+      !t.isRoute &&
+      t.eleCount > 0 &&
+      t.elePositive === t.eleCount &&
+      t.role === 'vehicle' &&
+      decideGpxDepthSign(t, trackStats).doubtful
+    ) {
+      yield {
+        kind: 'note',
+        text: `track "${t.name ?? '(unnamed)'}": every <ele> is positive (above the surface) although the track looks underwater; depth kept as -ele, check the log`,
+      };
+    }
+  }
+  const dialect = version === '1.0' ? 'gpx-1.0' : version === '1.1' ? 'gpx-1.1' : `gpx-${version || 'unknown-version'}`;
+  yield { kind: 'end', rowCount, dialect };
+}
+
+function decideGpxDepthSign(track: TrackStats, all: readonly TrackStats[]): DepthSignDecision {
+  if (track.depthCount > 0)
+    return {
+      rule: 'depth',
+      doubtful: false,
+      reason: 'depth read from a depth extension element, metres positive down',
+    };
+  if (track.eleCount === 0) return { rule: 'none', doubtful: false, reason: 'the track has no <ele> or depth values' };
+  const positive = track.elePositive === track.eleCount;
+  const label = `${track.name ?? ''} ${track.type ?? ''}`;
+  const underwaterEvidence =
+    track.role === 'vehicle' && (UNDERWATER_HINT.test(label) || all.some((t) => t !== track && t.role === 'surface'));
+  if (positive && underwaterEvidence) {
+    return {
+      rule: 'negated-elevation',
+      doubtful: true,
+      reason:
+        'depth = -ele, but every <ele> is positive while the track is a vehicle underwater: the log may have written depth into <ele>',
+    };
+  }
+  return {
+    rule: 'negated-elevation',
+    doubtful: false,
+    reason: 'depth = -ele (GPX elevation is metres above the geoid/surface)',
+  };
+}
+
+function localName(name: string): string {
+  const at = name.indexOf(':');
+  return at < 0 ? name : name.slice(at + 1);
+}
+
+/** Reads a whole GPX log into tracks, waypoints and rejections; see `readGpxEvents`. Does not validate (see `validateGpx`). */
+export function readGpx(input: LogInput, options: ReadOptions = {}): LogReadResult {
+  const decoded = decodeLogText(input.fileName, input.content);
+  if (!decoded.ok) return refusedLog('gpx', decoded.rejection);
+  const forbidden = findForbiddenXml(input.fileName, decoded.text);
+  if (forbidden !== undefined) return refusedLog('gpx', forbidden);
+  const result = collectReadEvents(readGpxEvents({ fileName: input.fileName, chunks: [decoded.text] }, options), {
+    fileName: input.fileName,
+    format: 'gpx',
+    timeZone: 'UTC',
+  });
+  if (decoded.encoding !== 'utf-8') result.notes.unshift(`decoded as ${decoded.encoding.toUpperCase()}`);
+  return result;
+}

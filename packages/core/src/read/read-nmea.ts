@@ -1,0 +1,423 @@
+import type { RejectionCode } from '../model/rejection.js';
+import type { Fix, TrackRole } from '../model/track.js';
+import { MPS_PER_KNOT, normaliseAzimuthDeg } from '../model/units.js';
+import { collectReadEvents } from './collect-read-events.js';
+import { decodeLogText } from './decode-log-text.js';
+import type { LogInput, LogReadResult, ReadOptions } from './log-read-result.js';
+import { LogTimeParser } from './parse-log-time.js';
+import { type LogTextInput, refusedLog } from './read-csv.js';
+import type { ReadEvent } from './read-event.js';
+import { splitLogLines } from './split-log-lines.js';
+
+const DAY_MS = 86_400_000;
+const HALF_DAY_MS = 43_200_000;
+/** Epochs held while waiting for the first date (RMC or ZDA); beyond this they are rejected `no-date`. */
+const MAX_UNDATED_EPOCHS = 100_000;
+/** NMEA 0183 limit: 82 characters including `$` and CR LF (NMEA Revealed, E. S. Raymond). */
+const NMEA_MAX_SENTENCE = 82;
+
+interface Epoch {
+  todMs: number;
+  line: number;
+  fix: Fix;
+  /** UTC ms of 00:00 of the epoch's date, when an RMC in the epoch gave it. */
+  dayMs?: number;
+  hasPosition: boolean;
+}
+
+/**
+ * XOR of the characters between the start delimiter (`$` or `!`) and `*`, as two upper-case hex
+ * digits (NMEA Revealed, E. S. Raymond, checksum rule).
+ */
+export function computeNmeaChecksum(body: string): string {
+  let x = 0;
+  for (let i = 0; i < body.length; i++) x ^= body.charCodeAt(i);
+  return x.toString(16).toUpperCase().padStart(2, '0');
+}
+
+/**
+ * Streams an NMEA 0183 log as read events. GGA and RMC sentences with the same time of day make
+ * one fix (position, quality, speed); VTG (speed), HDT (true heading) and HDG (magnetic heading
+ * plus deviation and variation) merge into the current fix; ZDA and RMC carry the date, which
+ * rolls over at midnight when the time of day goes back by more than 12 hours. Fixes before the
+ * first date wait for it (and are dated backwards across midnight when needed). Any talker ID is
+ * accepted; truncated trailing fields are read as empty. Depth is the negated GGA altitude.
+ * Rejections: `bad-checksum`, `unsupported-sentence` (a line that is not a sentence),
+ * `no-fix` (GGA quality 0, RMC status V, empty position), `unparsable-coordinate`,
+ * `unparsable-time`, `no-date`, `time-out-of-range`, `line-too-long`. Other sentence types are
+ * counted as non-fix rows.
+ */
+export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}): Generator<ReadEvent> {
+  const file = input.fileName;
+  const times = new LogTimeParser('UTC');
+  const role: TrackRole = options.role ?? (/surface|ship|vessel|boat/i.test(file) ? 'surface' : 'vehicle');
+  yield { kind: 'track', role };
+  let rowCount = 0;
+  let dayMs: number | undefined; // 00:00 UTC of the current date
+  let lastTodMs: number | undefined;
+  let current: Epoch | undefined;
+  let extras: Partial<Fix> = {};
+  const undated: Epoch[] = [];
+  const unused = new Map<string, number>();
+  let withoutChecksum = 0;
+  let overLength = 0;
+  let altitudes = 0;
+  let positiveAltitudes = 0;
+  let magneticWithoutVariation = 0;
+  const reject = (line: number, code: RejectionCode, expected: string, found: string, column?: number): ReadEvent => ({
+    kind: 'rejection',
+    rejection:
+      column === undefined ? { file, line, code, expected, found } : { file, line, column, code, expected, found },
+  });
+  /** Dates an epoch from the carried date, rolling over at midnight. */
+  const dateEpoch = function* (epoch: Epoch): Generator<ReadEvent> {
+    if (epoch.dayMs !== undefined) {
+      dayMs = epoch.dayMs;
+    } else if (dayMs !== undefined && lastTodMs !== undefined && epoch.todMs < lastTodMs - HALF_DAY_MS) {
+      dayMs += DAY_MS; // midnight passed since the last dated sentence
+    } else if (dayMs !== undefined && lastTodMs !== undefined && epoch.todMs > lastTodMs + HALF_DAY_MS) {
+      dayMs -= DAY_MS; // a late sentence from before midnight
+    }
+    lastTodMs = epoch.todMs;
+    yield* emitEpoch(epoch, dayMs as number);
+  };
+  const emitEpoch = function* (epoch: Epoch, day: number): Generator<ReadEvent> {
+    const t = times.acceptUtc(day + epoch.todMs);
+    if (!t.ok) {
+      yield reject(epoch.line, t.code, t.expected, new Date(day + epoch.todMs).toISOString());
+      return;
+    }
+    epoch.fix.timeMs = t.timeMs;
+    yield { kind: 'fix', fix: epoch.fix, line: epoch.line };
+  };
+  const flush = function* (): Generator<ReadEvent> {
+    const epoch = current;
+    current = undefined;
+    if (epoch === undefined) return;
+    if (dayMs === undefined && epoch.dayMs === undefined) {
+      if (undated.length >= MAX_UNDATED_EPOCHS) {
+        yield reject(epoch.line, 'no-date', 'a date from an RMC or ZDA sentence before this fix', 'no date yet');
+        return;
+      }
+      undated.push(epoch);
+      return;
+    }
+    if (undated.length > 0) {
+      const firstDay = epoch.dayMs ?? (dayMs as number);
+      const anchorTod = epoch.todMs;
+      for (const u of undated) yield* emitEpoch(u, u.todMs > anchorTod + HALF_DAY_MS ? firstDay - DAY_MS : firstDay);
+      undated.length = 0;
+    }
+    yield* dateEpoch(epoch);
+  };
+  /** Starts or joins the epoch at `todMs`; returns whether the sentence was merged into an open one. */
+  const joinEpoch = function* (todMs: number, line: number): Generator<ReadEvent, Epoch> {
+    if (current !== undefined && current.todMs === todMs) {
+      yield { kind: 'non-fix-row', line, why: 'merged into the fix of the same time' };
+      return current;
+    }
+    yield* flush();
+    current = {
+      todMs,
+      line,
+      fix: { timeMs: Number.NaN, latDeg: Number.NaN, lonDeg: Number.NaN, ...extras },
+      hasPosition: false,
+    };
+    extras = {};
+    return current;
+  };
+  for (const { text, line, tooLongChars } of splitLogLines(input.chunks)) {
+    if (tooLongChars !== undefined) {
+      rowCount++;
+      yield reject(line, 'line-too-long', 'an NMEA sentence of at most 82 characters', `${tooLongChars} characters`);
+      continue;
+    }
+    const trimmed = text.trim();
+    if (trimmed === '') continue;
+    rowCount++;
+    const start = Math.max(trimmed.indexOf('$'), -1);
+    const bang = trimmed.indexOf('!');
+    const at = start >= 0 ? start : bang;
+    if (at < 0) {
+      yield reject(
+        line,
+        'unsupported-sentence',
+        'an NMEA 0183 sentence ($, talker ID, sentence type, fields)',
+        quote(trimmed),
+      );
+      continue;
+    }
+    const sentence = trimmed.slice(at);
+    if (sentence.length + 2 > NMEA_MAX_SENTENCE) overLength++;
+    const star = sentence.lastIndexOf('*');
+    let body: string;
+    if (star >= 0) {
+      body = sentence.slice(1, star);
+      const given = sentence.slice(star + 1, star + 3).toUpperCase();
+      const computed = computeNmeaChecksum(body);
+      if (given !== computed) {
+        yield reject(
+          line,
+          'bad-checksum',
+          `checksum ${computed} (XOR of the characters between $ and *)`,
+          `*${sentence.slice(star + 1)}`,
+          at + star + 1,
+        );
+        continue;
+      }
+    } else {
+      body = sentence.slice(1);
+      withoutChecksum++;
+    }
+    const fields = body.split(',');
+    const address = fields[0] ?? '';
+    if (sentence.charCodeAt(0) === 33 || address.length < 5 || address.charCodeAt(0) === 80 /* P: proprietary */) {
+      unused.set(address, (unused.get(address) ?? 0) + 1);
+      yield { kind: 'non-fix-row', line, why: 'sentence type not used' };
+      continue;
+    }
+    const type = address.slice(address.length - 3).toUpperCase();
+    const f = (i: number) => fields[i] ?? '';
+    switch (type) {
+      case 'GGA': {
+        const tod = parseTimeOfDay(f(1));
+        if (tod === undefined) {
+          yield reject(line, 'unparsable-time', 'a UTC time of day hhmmss.ss in GGA field 1', quote(f(1)), 2);
+          continue;
+        }
+        const quality = f(6) === '' ? Number.NaN : Number(f(6));
+        if (quality === 0 || f(2) === '' || f(4) === '') {
+          yield reject(
+            line,
+            'no-fix',
+            'a GGA position with fix quality 1-8',
+            quality === 0 ? 'quality 0 (no fix)' : 'an empty position',
+          );
+          continue;
+        }
+        const lat = parseNmeaCoordinate(f(2), f(3), 'lat');
+        const lon = parseNmeaCoordinate(f(4), f(5), 'lon');
+        if (lat === undefined || lon === undefined) {
+          yield reject(
+            line,
+            'unparsable-coordinate',
+            lat === undefined ? 'latitude ddmm.mmmm with N or S' : 'longitude dddmm.mmmm with E or W',
+            quote(lat === undefined ? `${f(2)},${f(3)}` : `${f(4)},${f(5)}`),
+          );
+          continue;
+        }
+        const epoch = yield* joinEpoch(tod, line);
+        if (!epoch.hasPosition) {
+          epoch.fix.latDeg = lat;
+          epoch.fix.lonDeg = lon;
+          epoch.hasPosition = true;
+        }
+        if (!Number.isNaN(quality)) epoch.fix.quality = quality;
+        const altitude = Number(f(9));
+        if (f(9) !== '' && Number.isFinite(altitude)) {
+          epoch.fix.depthM = -altitude + 0;
+          altitudes++;
+          if (altitude > 0) positiveAltitudes++;
+        }
+        break;
+      }
+      case 'RMC': {
+        const tod = parseTimeOfDay(f(1));
+        if (tod === undefined) {
+          yield reject(line, 'unparsable-time', 'a UTC time of day hhmmss.ss in RMC field 1', quote(f(1)), 2);
+          continue;
+        }
+        const day = parseNmeaDate(f(9));
+        if (f(2) !== 'A' || f(3) === '' || f(5) === '') {
+          if (day !== undefined && current === undefined) {
+            dayMs = day;
+            lastTodMs = tod;
+          }
+          yield reject(
+            line,
+            'no-fix',
+            'an RMC with status A and a position',
+            f(2) === 'V' ? 'status V (warning, no valid fix)' : 'an empty position',
+          );
+          continue;
+        }
+        const lat = parseNmeaCoordinate(f(3), f(4), 'lat');
+        const lon = parseNmeaCoordinate(f(5), f(6), 'lon');
+        if (lat === undefined || lon === undefined) {
+          yield reject(
+            line,
+            'unparsable-coordinate',
+            lat === undefined ? 'latitude ddmm.mmmm with N or S' : 'longitude dddmm.mmmm with E or W',
+            quote(lat === undefined ? `${f(3)},${f(4)}` : `${f(5)},${f(6)}`),
+          );
+          continue;
+        }
+        if (f(9) !== '' && day === undefined) {
+          yield reject(line, 'unparsable-time', 'an RMC date ddmmyy in field 9', quote(f(9)), 10);
+          continue;
+        }
+        const epoch = yield* joinEpoch(tod, line);
+        if (!epoch.hasPosition) {
+          epoch.fix.latDeg = lat;
+          epoch.fix.lonDeg = lon;
+          epoch.hasPosition = true;
+        }
+        if (day !== undefined) epoch.dayMs = day;
+        const sog = Number(f(7));
+        if (f(7) !== '' && Number.isFinite(sog) && Number.isNaN(epoch.fix.speedMps ?? Number.NaN))
+          epoch.fix.speedMps = sog * MPS_PER_KNOT;
+        break;
+      }
+      case 'VTG': {
+        // Older form `$--VTG,x.x,x,x.x,x.x`: field 2 is not the literal T (NMEA Revealed, VTG).
+        const newer = f(2) === 'T' || f(2) === '';
+        const knots = Number(newer ? f(5) : f(3));
+        const kmh = Number(newer ? f(7) : f(4));
+        const speed =
+          (newer ? f(5) : f(3)) !== '' && Number.isFinite(knots)
+            ? knots * MPS_PER_KNOT
+            : (newer ? f(7) : f(4)) !== '' && Number.isFinite(kmh)
+              ? kmh / 3.6
+              : Number.NaN;
+        attach({ speedMps: speed });
+        yield { kind: 'non-fix-row', line, why: 'VTG merged into the current fix' };
+        break;
+      }
+      case 'HDT': {
+        const heading = Number(f(1));
+        if (f(1) !== '' && Number.isFinite(heading)) attach({ headingDeg: normaliseAzimuthDeg(heading) });
+        yield { kind: 'non-fix-row', line, why: 'HDT merged into the current fix' };
+        break;
+      }
+      case 'HDG': {
+        const magnetic = Number(f(1));
+        const deviation = f(2) === '' ? 0 : Number(f(2)) * (f(3) === 'W' ? -1 : 1);
+        if (f(1) !== '' && Number.isFinite(magnetic)) {
+          if (f(4) === '') magneticWithoutVariation++;
+          else {
+            // true = magnetic + deviation + variation, east positive (NMEA HDG; from memory)
+            const variation = Number(f(4)) * (f(5) === 'W' ? -1 : 1);
+            const heading = magnetic + deviation + variation;
+            if (Number.isFinite(heading)) attach({ headingDeg: normaliseAzimuthDeg(heading) });
+          }
+        }
+        yield { kind: 'non-fix-row', line, why: 'HDG merged into the current fix' };
+        break;
+      }
+      case 'ZDA': {
+        const tod = parseTimeOfDay(f(1));
+        const d = Number(f(2));
+        const m = Number(f(3));
+        const y = Number(f(4));
+        const valid = tod !== undefined && /^\d{4}$/.test(f(4)) && d >= 1 && d <= 31 && m >= 1 && m <= 12;
+        if (!valid) {
+          yield reject(line, 'unparsable-time', 'a ZDA with hhmmss.ss, day, month and 4-digit year', quote(sentence));
+          continue;
+        }
+        yield* flush();
+        const day = Date.UTC(y, m - 1, d);
+        if (undated.length > 0) {
+          for (const u of undated) yield* emitEpoch(u, u.todMs > tod + HALF_DAY_MS ? day - DAY_MS : day);
+          undated.length = 0;
+        }
+        dayMs = day;
+        lastTodMs = tod;
+        yield { kind: 'non-fix-row', line, why: 'ZDA sets the date' };
+        break;
+      }
+      default:
+        unused.set(type, (unused.get(type) ?? 0) + 1);
+        yield { kind: 'non-fix-row', line, why: 'sentence type not used' };
+    }
+  }
+  yield* flush();
+  for (const u of undated)
+    yield reject(u.line, 'no-date', 'a date from an RMC or ZDA sentence somewhere in the log', 'none in the whole log');
+  undated.length = 0;
+  if (unused.size > 0)
+    yield { kind: 'note', text: `sentences not used: ${[...unused].map(([k, v]) => `${k} x${v}`).join(', ')}` };
+  if (withoutChecksum > 0)
+    yield { kind: 'note', text: `${withoutChecksum} sentences had no checksum and were read unchecked` };
+  if (overLength > 0)
+    yield {
+      kind: 'note',
+      text: `${overLength} sentences are longer than the 82 characters NMEA 0183 allows; read anyway`,
+    };
+  if (magneticWithoutVariation > 0)
+    yield {
+      kind: 'note',
+      text: `${magneticWithoutVariation} HDG sentences had no magnetic variation: their magnetic heading was not used`,
+    };
+  const doubtful = role === 'vehicle' && altitudes > 0 && positiveAltitudes === altitudes;
+  yield {
+    kind: 'depth-sign',
+    decision:
+      altitudes === 0
+        ? { rule: 'none', doubtful: false, reason: 'no GGA altitudes' }
+        : {
+            rule: 'negated-elevation',
+            doubtful,
+            reason: doubtful
+              ? 'depth = -GGA altitude, but every altitude is positive for a vehicle track: these may be antenna heights, not depths'
+              : 'depth = -GGA altitude above mean sea level',
+          },
+  };
+  yield { kind: 'end', rowCount, dialect: 'nmea-0183' };
+
+  function attach(values: Partial<Fix>): void {
+    const target = current === undefined ? extras : current.fix;
+    for (const [k, v] of Object.entries(values))
+      if (typeof v === 'number' && !Number.isNaN(v)) (target as Record<string, number>)[k] = v;
+  }
+}
+
+/** `hhmmss[.ss]` to milliseconds after midnight; `undefined` when malformed. */
+export function parseTimeOfDay(text: string): number | undefined {
+  if (!/^\d{6}(\.\d+)?$/.test(text)) return undefined;
+  const h = Number(text.slice(0, 2));
+  const m = Number(text.slice(2, 4));
+  const s = Number(text.slice(4));
+  if (h > 23 || m > 59 || s >= 61) return undefined;
+  return Math.round((h * 3600 + m * 60 + s) * 1000);
+}
+
+/** `ddmmyy` to 00:00 UTC ms; two-digit years 80-99 are 19xx, 00-79 are 20xx (common practice for NMEA dates). */
+export function parseNmeaDate(text: string): number | undefined {
+  if (!/^\d{6}$/.test(text)) return undefined;
+  const d = Number(text.slice(0, 2));
+  const m = Number(text.slice(2, 4));
+  const yy = Number(text.slice(4, 6));
+  if (d < 1 || d > 31 || m < 1 || m > 12) return undefined;
+  return Date.UTC(yy >= 80 ? 1900 + yy : 2000 + yy, m - 1, d);
+}
+
+/** NMEA `(d)ddmm.mmmm` plus hemisphere letter to signed degrees; `undefined` when malformed or out of range. */
+export function parseNmeaCoordinate(value: string, hemisphere: string, axis: 'lat' | 'lon'): number | undefined {
+  const degDigits = axis === 'lat' ? 2 : 3;
+  if (!/^\d+(\.\d+)?$/.test(value)) return undefined;
+  const dot = value.indexOf('.');
+  const intLength = dot < 0 ? value.length : dot;
+  if (intLength !== degDigits + 2) return undefined;
+  const deg = Number(value.slice(0, degDigits));
+  const min = Number(value.slice(degDigits));
+  if (min >= 60) return undefined;
+  const magnitude = deg + min / 60;
+  const valid = axis === 'lat' ? hemisphere === 'N' || hemisphere === 'S' : hemisphere === 'E' || hemisphere === 'W';
+  if (!valid || magnitude > (axis === 'lat' ? 90 : 180)) return undefined;
+  return hemisphere === 'S' || hemisphere === 'W' ? -magnitude : magnitude;
+}
+
+function quote(text: string): string {
+  return `"${text.length > 60 ? `${text.slice(0, 57)}...` : text}"`;
+}
+
+/** Reads a whole NMEA 0183 log into a track and rejections; see `readNmeaEvents`. */
+export function readNmea(input: LogInput, options: ReadOptions = {}): LogReadResult {
+  const decoded = decodeLogText(input.fileName, input.content);
+  if (!decoded.ok) return refusedLog('nmea', decoded.rejection);
+  return collectReadEvents(readNmeaEvents({ fileName: input.fileName, chunks: [decoded.text] }, options), {
+    fileName: input.fileName,
+    format: 'nmea',
+    timeZone: 'UTC',
+  });
+}
