@@ -1,25 +1,136 @@
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
-import express, { type Express } from 'express';
+import { LEADLINE_VERSION } from '@leadline/core';
+import express, { type Express, type RequestHandler } from 'express';
+import { rateLimit } from 'express-rate-limit';
+import session, { type Store as SessionStore } from 'express-session';
 import helmet from 'helmet';
-import { createErrorHandler, notFoundHandler } from './http/errors.js';
-import { createHealthRouter } from './routes/health-routes.js';
-import type { HealthStore } from './stores/health-store.js';
+import type { Knex } from 'knex';
+import type { Logger } from 'pino';
+import { createDocsRouter } from './http/docs-page.js';
+import { AppError, createErrorHandler, notFoundHandler } from './http/errors.js';
+import { mountRoutes } from './http/mount-routes.js';
+import { buildOpenApiDocument } from './http/openapi.js';
+import { createLogger, createRequestLogger } from './http/request-logger.js';
+import { defineRoute, type RouteSpec } from './http/route-table.js';
+import type { FakeSmtpServer } from './mail/fake-smtp-server.js';
+import type { Mailer } from './mail/mailer.js';
+import { createApiTokenRoutes } from './routes/api-token-routes.js';
+import { createAuthRoutes } from './routes/auth-routes.js';
+import { createHealthRoutes } from './routes/health-routes.js';
+import { createInvitationRoutes } from './routes/invitation-routes.js';
+import { createMailboxRoutes } from './routes/mailbox-routes.js';
+import { createMemberRoutes } from './routes/member-routes.js';
+import { authenticateApiToken } from './services/api-token-service.js';
+import type { ServiceContext } from './services/service-context.js';
+import { createKnexActivityStore } from './stores/activity-store.js';
+import { createKnexApiTokenStore } from './stores/api-token-store.js';
+import { createKnexEmailLinkStore } from './stores/email-link-store.js';
+import { createKnexHealthStore, type HealthStore } from './stores/health-store.js';
+import { createKnexUserStore } from './stores/user-store.js';
 
-/** What the app is built from: its stores and settings. No listening, no environment. */
-export interface AppDependencies {
-  healthStore: HealthStore;
-  /** Folder of the built web site; when set, it is served with a fallback to `index.html`. */
-  webDist?: string | undefined;
-  log?: (message: string) => void;
+/** The name of the session cookie. */
+export const SESSION_COOKIE = 'leadline.sid';
+
+/** A fixed-window limit: at most `limit` requests per client address per `windowMs`. */
+export interface RateLimitSetting {
+  windowMs: number;
+  limit: number;
 }
 
-/** Builds the Express app: the versioned API under `/api/v1`, the web site beside it. */
-export function createApp(deps: AppDependencies): Express {
-  const log = deps.log ?? ((message: string) => console.error(message));
+/** What the app is built from: its database, session store, mailer and settings. No listening, no environment. */
+export interface AppDependencies {
+  db: Knex;
+  /** Where sessions live (connect-pg-simple in production and tests). */
+  sessionStore: SessionStore;
+  sessionSecret: string;
+  /** Send the session cookie over HTTPS only; on behind a TLS proxy. */
+  cookieSecure?: boolean;
+  mailer: Mailer;
+  /** The local fake SMTP server; when set, its mailbox is served to admins. */
+  fakeMailbox?: FakeSmtpServer | undefined;
+  /** Base of links sent by e-mail. */
+  publicUrl: string;
+  uploadLimitBytes?: number;
+  rateLimits?: { signIn?: RateLimitSetting; reset?: RateLimitSetting };
+  logger?: Logger;
+  now?: () => Date;
+  /** Replaces the database health check (tests of an unreachable database). */
+  healthStore?: HealthStore;
+  /** Folder of the built web site; when set, it is served with a fallback to `index.html`. */
+  webDist?: string | undefined;
+}
+
+/** The app and the route table it serves (the authorisation matrix test walks the table). */
+export interface BuiltApp {
+  app: Express;
+  routes: readonly RouteSpec[];
+}
+
+function limiter(setting: RateLimitSetting, what: string): RequestHandler {
+  return rateLimit({
+    windowMs: setting.windowMs,
+    limit: setting.limit,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    handler: (_req, _res, next) => {
+      next(
+        new AppError(
+          'too-many-requests',
+          `Too many ${what} attempts from this address; wait ${Math.ceil(setting.windowMs / 60000)} minutes and try again.`,
+        ),
+      );
+    },
+  });
+}
+
+/** Builds the Express app: the versioned API under `/api/v1`, its docs, the web site beside it. */
+export function buildApp(deps: AppDependencies): BuiltApp {
+  const logger = deps.logger ?? createLogger('info');
+  const ctx: ServiceContext = {
+    users: createKnexUserStore(deps.db),
+    tokens: createKnexApiTokenStore(deps.db),
+    activity: createKnexActivityStore(deps.db),
+    links: createKnexEmailLinkStore(deps.db),
+    health: deps.healthStore ?? createKnexHealthStore(deps.db),
+    mailer: deps.mailer,
+    publicUrl: deps.publicUrl.replace(/\/+$/, ''),
+    now: deps.now ?? (() => new Date()),
+  };
+  // Common practice for sign-in throttling: a handful of attempts per address per quarter hour.
+  const limits = {
+    signIn: limiter(deps.rateLimits?.signIn ?? { windowMs: 15 * 60_000, limit: 10 }, 'sign-in'),
+    reset: limiter(deps.rateLimits?.reset ?? { windowMs: 15 * 60_000, limit: 10 }, 'password-reset or invitation'),
+  };
+
+  const routes: RouteSpec[] = [
+    ...createHealthRoutes({ healthStore: ctx.health }),
+    ...createAuthRoutes(ctx, limits),
+    ...createMemberRoutes(ctx),
+    ...createInvitationRoutes(ctx, limits),
+    ...createApiTokenRoutes(ctx),
+    ...(deps.fakeMailbox === undefined ? [] : createMailboxRoutes(deps.fakeMailbox)),
+  ];
+  let openApi: unknown;
+  routes.push(
+    defineRoute({
+      method: 'get',
+      path: '/openapi.json',
+      summary: 'This API as an OpenAPI 3.1 document, generated from the route table',
+      tag: 'Health',
+      access: 'public',
+      responses: { 200: { description: 'The OpenAPI document' } },
+      handler(_input, _req, res) {
+        openApi ??= buildOpenApiDocument(routes, { version: LEADLINE_VERSION });
+        res.json(openApi);
+      },
+    }),
+  );
+
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
+  app.use(createRequestLogger(logger));
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -37,9 +148,33 @@ export function createApp(deps: AppDependencies): Express {
 
   const api = express.Router();
   api.use(express.json({ limit: '1mb' }));
-  api.use(createHealthRouter(deps));
+  api.use(
+    session({
+      name: SESSION_COOKIE,
+      store: deps.sessionStore,
+      secret: deps.sessionSecret,
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      cookie: {
+        httpOnly: true,
+        sameSite: 'lax',
+        secure: deps.cookieSecure ?? false,
+        path: '/',
+        maxAge: 7 * 24 * 3600 * 1000,
+      },
+    }),
+  );
+  api.use(
+    mountRoutes(routes, {
+      users: ctx.users,
+      authenticateToken: (token) => authenticateApiToken(ctx, token),
+      uploadLimitBytes: deps.uploadLimitBytes ?? 100 * 1024 * 1024,
+    }),
+  );
   api.use(notFoundHandler);
   app.use('/api/v1', api);
+  app.use('/api/docs', createDocsRouter());
   app.use('/api', notFoundHandler);
 
   if (deps.webDist !== undefined && existsSync(join(deps.webDist, 'index.html'))) {
@@ -50,6 +185,11 @@ export function createApp(deps: AppDependencies): Express {
     });
   }
 
-  app.use(createErrorHandler(log));
-  return app;
+  app.use(createErrorHandler((message) => logger.error(message)));
+  return { app, routes };
+}
+
+/** Builds the Express app (see `buildApp`). */
+export function createApp(deps: AppDependencies): Express {
+  return buildApp(deps).app;
 }

@@ -1,14 +1,33 @@
 import { z } from 'zod';
 
-const ConfigSchema = z.object({
-  DATABASE_URL: z
-    .string({ error: 'DATABASE_URL is required (npm start sets it; e.g. postgres://app@127.0.0.1:54321/leadline)' })
-    .regex(/^postgres(ql)?:\/\//, 'DATABASE_URL must start with postgres:// or postgresql://'),
-  PORT: z.coerce.number().int().min(0).max(65535).default(8080),
-  HOST: z.string().min(1).default('127.0.0.1'),
-  WEB_DIST: z.string().optional(),
-  NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
-});
+const DEVELOPMENT_SESSION_SECRET = 'leadline-development-session-secret';
+
+const ConfigSchema = z
+  .object({
+    DATABASE_URL: z
+      .string({ error: 'DATABASE_URL is required (npm start sets it; e.g. postgres://app@127.0.0.1:54321/leadline)' })
+      .regex(/^postgres(ql)?:\/\//, 'DATABASE_URL must start with postgres:// or postgresql://'),
+    PORT: z.coerce.number().int().min(0).max(65535).default(8080),
+    HOST: z.string().min(1).default('127.0.0.1'),
+    WEB_DIST: z.string().optional(),
+    NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
+    SESSION_SECRET: z.string().min(32, 'SESSION_SECRET needs at least 32 characters').optional(),
+    COOKIE_SECURE: z.enum(['true', 'false']).optional(),
+    SMTP_URL: z
+      .string()
+      .regex(/^smtps?:\/\//, 'SMTP_URL must start with smtp:// or smtps://')
+      .optional(),
+    MAIL_FROM: z.string().min(3).default('Leadline <leadline@localhost>'),
+    PUBLIC_URL: z.url('PUBLIC_URL must be a URL such as https://leadline.example.org').optional(),
+    UPLOAD_LIMIT_MB: z.coerce.number().positive().max(4096).default(100),
+    LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  })
+  .superRefine((c, issue) => {
+    if (c.NODE_ENV === 'production' && c.SESSION_SECRET === undefined)
+      issue.addIssue({ code: 'custom', path: ['SESSION_SECRET'], message: 'SESSION_SECRET is required in production' });
+    if (c.NODE_ENV === 'production' && c.SMTP_URL === undefined)
+      issue.addIssue({ code: 'custom', path: ['SMTP_URL'], message: 'SMTP_URL is required in production' });
+  });
 
 /** The server's settings, parsed from the environment. */
 export interface ServerConfig {
@@ -18,6 +37,15 @@ export interface ServerConfig {
   /** Folder of the built web site to serve beside the API; the API alone when absent. */
   webDist: string | undefined;
   environment: 'development' | 'test' | 'production';
+  sessionSecret: string;
+  cookieSecure: boolean;
+  /** The SMTP server to send through; when absent (development), a local fake SMTP server is started. */
+  smtpUrl: string | undefined;
+  mailFrom: string;
+  /** Base of links in e-mails; defaults to http://HOST:PORT. */
+  publicUrl: string;
+  uploadLimitBytes: number;
+  logLevel: string;
 }
 
 /** Thrown with every problem in the environment listed, one per line. */
@@ -39,5 +67,12 @@ export function parseConfig(env: NodeJS.ProcessEnv): ServerConfig {
     host: c.HOST,
     webDist: c.WEB_DIST,
     environment: c.NODE_ENV,
+    sessionSecret: c.SESSION_SECRET ?? DEVELOPMENT_SESSION_SECRET,
+    cookieSecure: c.COOKIE_SECURE === 'true',
+    smtpUrl: c.SMTP_URL,
+    mailFrom: c.MAIL_FROM,
+    publicUrl: (c.PUBLIC_URL ?? `http://${c.HOST}:${c.PORT}`).replace(/\/+$/, ''),
+    uploadLimitBytes: Math.round(c.UPLOAD_LIMIT_MB * 1024 * 1024),
+    logLevel: c.LOG_LEVEL,
   };
 }

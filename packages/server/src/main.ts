@@ -3,7 +3,10 @@ import { LEADLINE_VERSION } from '@leadline/core';
 import { createApp } from './app.js';
 import { ConfigError, parseConfig } from './config.js';
 import { createDatabase } from './db.js';
-import { createKnexHealthStore } from './stores/health-store.js';
+import { createLogger } from './http/request-logger.js';
+import { createPgSessionStore } from './http/session-store.js';
+import { type FakeSmtpServer, startFakeSmtpServer } from './mail/fake-smtp-server.js';
+import { createSmtpMailer } from './mail/mailer.js';
 
 function fail(message: string): never {
   process.stderr.write(`leadline server: ${message}\n`);
@@ -18,8 +21,34 @@ try {
   throw error;
 }
 
+const logger = createLogger(config.logLevel);
 const db = createDatabase(config.databaseUrl);
-const app = createApp({ healthStore: createKnexHealthStore(db), webDist: config.webDist });
+const sessions = createPgSessionStore(config.databaseUrl);
+
+// Without SMTP_URL (development), mail goes to a local fake SMTP server whose mailbox admins can read.
+let fakeMailbox: FakeSmtpServer | undefined;
+let smtpUrl = config.smtpUrl;
+if (smtpUrl === undefined) {
+  fakeMailbox = await startFakeSmtpServer(Number(process.env.FAKE_SMTP_PORT ?? 0));
+  smtpUrl = fakeMailbox.url;
+  process.stdout.write(
+    `leadline server: no SMTP_URL; e-mail goes to the fake SMTP server at ${smtpUrl} (GET /api/v1/dev/mailbox as an admin)\n`,
+  );
+}
+const mailer = createSmtpMailer(smtpUrl, config.mailFrom);
+
+const app = createApp({
+  db,
+  sessionStore: sessions.store,
+  sessionSecret: config.sessionSecret,
+  cookieSecure: config.cookieSecure,
+  mailer,
+  fakeMailbox,
+  publicUrl: config.publicUrl,
+  uploadLimitBytes: config.uploadLimitBytes,
+  logger,
+  webDist: config.webDist,
+});
 
 const server: Server = app.listen(config.port, config.host);
 server.on('listening', () => {
@@ -40,7 +69,8 @@ function stop(): void {
   if (stopping) return;
   stopping = true;
   server.close(() => {
-    void db.destroy().finally(() => process.exit(0));
+    mailer.close();
+    void Promise.allSettled([sessions.close(), fakeMailbox?.close(), db.destroy()]).finally(() => process.exit(0));
   });
   server.closeAllConnections();
   setTimeout(() => process.exit(0), 5000).unref();

@@ -21,7 +21,9 @@ export type AppErrorCode =
   | 'not-found'
   | 'conflict'
   | 'payload-too-large'
-  | 'unsupported-media-type';
+  | 'unsupported-media-type'
+  | 'unprocessable'
+  | 'too-many-requests';
 
 const STATUS: Record<AppErrorCode | 'internal', number> = {
   'bad-request': 400,
@@ -31,6 +33,8 @@ const STATUS: Record<AppErrorCode | 'internal', number> = {
   conflict: 409,
   'payload-too-large': 413,
   'unsupported-media-type': 415,
+  unprocessable: 422,
+  'too-many-requests': 429,
   internal: 500,
 };
 
@@ -46,7 +50,7 @@ export const notFoundHandler: RequestHandler = (req, _res, next) => {
 
 /** Maps every error to the one error body; unexpected errors are logged and hidden. */
 export function createErrorHandler(log: (message: string) => void): ErrorRequestHandler {
-  return (error: unknown, _req, res, _next) => {
+  return (error: unknown, req, res, _next) => {
     let code: AppErrorCode | 'internal' = 'internal';
     let message = 'Something went wrong on the server; it has been logged.';
     let details: unknown;
@@ -60,12 +64,26 @@ export function createErrorHandler(log: (message: string) => void): ErrorRequest
         error.type === 'entity.too.large'
           ? 'The request body is too large.'
           : `The request body could not be read: ${error.message}`;
+    } else if (isMulterError(error)) {
+      code = error.code === 'LIMIT_FILE_SIZE' ? 'payload-too-large' : 'bad-request';
+      message =
+        error.code === 'LIMIT_FILE_SIZE'
+          ? `The file${error.field ? ` in field "${error.field}"` : ''} is larger than the upload limit.`
+          : `The upload could not be read: ${error.message}`;
     } else {
-      log(`unexpected error: ${error instanceof Error ? (error.stack ?? error.message) : String(error)}`);
+      const text = `unexpected error: ${error instanceof Error ? (error.stack ?? error.message) : String(error)}`;
+      if (req.log) req.log.error({ err: error }, 'unexpected error');
+      else log(text);
     }
     const body: ErrorBody = { error: { code, message, ...(details === undefined ? {} : { details }) } };
     res.status(STATUS[code]).json(body);
   };
+}
+
+function isMulterError(
+  error: unknown,
+): error is { name: 'MulterError'; code: string; field?: string; message: string } {
+  return error instanceof Error && error.name === 'MulterError';
 }
 
 function isBodyParserError(error: unknown): error is { type: string; message: string } {
