@@ -1,0 +1,27 @@
+import type { AuditContext } from '../audit-context.js';
+import type { Finding } from '../finding.js';
+import { findingsFromRuns, fixCount, formatValue } from '../findings-from-runs.js';
+import { shareAboveSurface } from './check-depth-sign.js';
+
+/**
+ * Vehicle track above the water surface: a depth shallower than minus
+ * `profile.aboveSurfaceToleranceM`. Flags the fix; runs are `warn` findings (`fail` past
+ * `profile.flaggedShareFail`). Silent when most depths are above the water, which the depth-sign
+ * check reports as one problem instead of flagging every fix.
+ */
+export function checkAboveSurface(context: AuditContext): Finding[] {
+  const { n, profile } = context;
+  if (shareAboveSurface(context) > 0.5) return [];
+  const depth = context.track.columns.depthM;
+  const measured = new Float64Array(n).fill(Number.NaN);
+  for (let i = 0; i < n; i++) {
+    const d = depth[i] as number;
+    if (d < -profile.aboveSurfaceToleranceM) measured[i] = -d;
+  }
+  return findingsFromRuns(context, 'above-surface', measured, {
+    limit: profile.aboveSurfaceToleranceM,
+    unit: 'm',
+    describe: (worst, count) =>
+      `${fixCount(count)} put the vehicle up to ${formatValue(worst)} m above the water surface; a depth offset or sensor fault.`,
+  });
+}
