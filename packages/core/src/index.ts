@@ -56,6 +56,7 @@ export type { ResolveSetup, ResolveSetupInput, WaterSoundSpeed } from './resolve
 export { parseResolveSetup, resolveSetupSchema } from './resolve/resolve-setup.js';
 export type {
   AppliedSetup,
+  AuditOutcome,
   ResolveComparison,
   ResolvedProvenance,
   ResolveRejection,

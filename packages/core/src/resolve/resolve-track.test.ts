@@ -1,4 +1,6 @@
 import { describe, expect, it } from 'vitest';
+import { PRESET_PROFILES } from '../audit/audit-profile.js';
+import { auditTrack } from '../audit/audit-track.js';
 import { InvalidArgumentError } from '../errors.js';
 import { directGeodesic, geodesicDistanceM } from '../geodesy/geodesic.js';
 import type { BearingReference, Track } from '../model/track.js';
@@ -337,6 +339,24 @@ describe('resolveTrack', () => {
     const result = resolveTrack(dive.track, TRUE_RESOLVE_SETUP, { surfaceTrack });
     expect(result.rejections).toEqual([]);
     expect(rmsAgainstTruth(dive, result)).toBeLessThan(0.001);
+  });
+
+  it('audits the logged and the re-solved track with the same profile, for the verdict to deliver', () => {
+    const dive = makeDive({ fixes: 40 });
+    const profile = PRESET_PROFILES.diver;
+    const result = resolveTrack(dive.track, TRUE_RESOLVE_SETUP, { auditProfile: profile });
+    const setup = { transceiverDraftM: 1.8 };
+    const logged = auditTrack(dive.track, { profile, setup });
+    const resolved = auditTrack(result.track, { profile, setup });
+    expect(result.comparison.audit).toEqual({
+      profile: profile.name,
+      logged: { verdict: logged.verdict, findingCount: logged.findings.length, flaggedCount: logged.flaggedCount },
+      resolved: {
+        verdict: resolved.verdict,
+        findingCount: resolved.findings.length,
+        flaggedCount: resolved.flaggedCount,
+      },
+    });
   });
 
   it('refuses an invalid setup, naming the key, and an unknown bearing reference', () => {

@@ -1,3 +1,7 @@
+import type { AuditProfile } from '../audit/audit-profile.js';
+import type { AuditSetup } from '../audit/audit-setup.js';
+import { auditTrack } from '../audit/audit-track.js';
+import type { Verdict } from '../audit/finding.js';
 import { InvalidArgumentError } from '../errors.js';
 import { geodesicDistanceM } from '../geodesy/geodesic.js';
 import type { BearingReference, Provenance, Track } from '../model/track.js';
@@ -45,6 +49,16 @@ export interface ResolveComparison {
   /** Horizontal geodesic distance logged → re-solved per input fix, metres; `NaN` when either is missing. */
   movedM: Float64Array;
   summary: MovementSummary;
+  /** The audit of the logged track and of the re-solved one, with the same profile and setup. */
+  audit: { profile: string; logged: AuditOutcome; resolved: AuditOutcome };
+}
+
+/** A track's audit in brief. */
+export interface AuditOutcome {
+  verdict: Verdict;
+  findingCount: number;
+  /** Fixes some check flagged as suspect. */
+  flaggedCount: number;
 }
 
 /** Everything a re-solve returns. */
@@ -72,6 +86,10 @@ export interface ResolveTrackOptions {
   surfaceTrack?: Track;
   /** Largest gap, ms, bridged when interpolating the surface track; default 10 000. */
   maxSurfaceGapMs?: number;
+  /** The audit profile both tracks are audited with; default the audit's own default. */
+  auditProfile?: AuditProfile;
+  /** The audit setup; its transceiver draft defaults to the re-solve setup's. */
+  auditSetup?: AuditSetup;
 }
 
 /**
@@ -81,7 +99,8 @@ export interface ResolveTrackOptions {
  * span), azimuth = heading + heading offset + declination + relative bearing (true and magnetic
  * bearings are first taken back with the logged offsets), the lever arm is turned with the
  * heading, and positions come from geodesic direct problems on WGS 84 (see
- * `solveVehiclePosition`). Fixes that cannot be positioned become `ResolveRejection`s (missing
+ * `solveVehiclePosition`). The comparison gives how far each fix moved (median, 95th percentile,
+ * max) and the audit verdicts of the logged and the re-solved track. Fixes that cannot be positioned become `ResolveRejection`s (missing
  * observations, vertical separation larger than the slant range); none is dropped silently.
  * Throws `InvalidArgumentError` for an invalid setup, a surface track passed as the vehicle, a
  * bearing reference that neither the log nor the setup states, or a WMM declination without a
@@ -210,6 +229,13 @@ export function resolveTrack(track: Track, setupInput: unknown, options: Resolve
     waterSoundSpeedMinMps: sourceIndex.length === 0 ? Number.NaN : minMps,
     waterSoundSpeedMaxMps: sourceIndex.length === 0 ? Number.NaN : maxMps,
   };
+  const auditSetup: AuditSetup = { transceiverDraftM: draftM, ...options.auditSetup };
+  const auditOptions = {
+    ...(options.auditProfile === undefined ? {} : { profile: options.auditProfile }),
+    setup: auditSetup,
+  };
+  const loggedAudit = auditTrack(track, auditOptions);
+  const resolvedAudit = auditTrack(resolved, auditOptions);
   return {
     track: resolved,
     setup,
@@ -222,8 +248,17 @@ export function resolveTrack(track: Track, setupInput: unknown, options: Resolve
       rejectedCount: rejections.length,
       movedM,
       summary: summariseMovement(movedM),
+      audit: {
+        profile: resolvedAudit.profile,
+        logged: briefAudit(loggedAudit),
+        resolved: briefAudit(resolvedAudit),
+      },
     },
   };
+}
+
+function briefAudit(result: ReturnType<typeof auditTrack>): AuditOutcome {
+  return { verdict: result.verdict, findingCount: result.findings.length, flaggedCount: result.flaggedCount };
 }
 
 function pickBearingReference(setup: ResolveSetup, track: Track): Exclude<BearingReference, 'unknown'> {
