@@ -50,6 +50,8 @@ export {
 } from './model/units.js';
 export type { PathSoundSpeed } from './resolve/create-path-sound-speed.js';
 export { createPathSoundSpeed } from './resolve/create-path-sound-speed.js';
+export type { ResolveReport } from './resolve/format-resolve-result.js';
+export { formatResolveResult } from './resolve/format-resolve-result.js';
 export type { MagneticDeclination } from './resolve/magnetic-declination.js';
 export { decimalYearFromTimeMs, magneticDeclination } from './resolve/magnetic-declination.js';
 export type { ResolveSetup, ResolveSetupInput, WaterSoundSpeed } from './resolve/resolve-setup.js';
