@@ -1,10 +1,16 @@
+export type { UtmChoice } from './crs/choose-utm-zone.js';
+export { chooseUtmZone, utmZoneOf } from './crs/choose-utm-zone.js';
 export type { ConvertToWgs84Result } from './crs/convert-to-wgs84.js';
 export { convertToWgs84 } from './crs/convert-to-wgs84.js';
 export type { ReprojectedColumns, Reprojection } from './crs/create-reprojection.js';
 export { createReprojection } from './crs/create-reprojection.js';
 export type { CrsMethod, ResolveCrsOptions, ResolvedCrs } from './crs/resolve-crs.js';
 export { parseCrsCode, resolveCrs } from './crs/resolve-crs.js';
+export type { CrsListing } from './crs/search-crs.js';
+export { findCrsAt, searchCrs } from './crs/search-crs.js';
 export { InvalidArgumentError, LeadlineError, UnreadableInputError } from './errors.js';
+export type { SurfaceRange, SurfaceRangeOptions } from './geodesy/compute-surface-range.js';
+export { computeSurfaceRange } from './geodesy/compute-surface-range.js';
 export type { LocalFrame } from './geodesy/create-local-frame.js';
 export { createLocalFrame } from './geodesy/create-local-frame.js';
 export type { DirectGeodesicResult, GeodesicPolygonAreaResult, InverseGeodesicResult } from './geodesy/geodesic.js';
@@ -14,6 +20,14 @@ export {
   geodesicPolygonArea,
   inverseGeodesic,
 } from './geodesy/geodesic.js';
+export type { BoundingBox, MeasureTrackOptions, SpeedCourse, TrackLength } from './geodesy/measure-track.js';
+export {
+  computeBoundingBox,
+  computeCentroid,
+  computeSegmentDistances,
+  computeSpeedAndCourse,
+  measureTrackLength,
+} from './geodesy/measure-track.js';
 export type { Rejection, RejectionCode } from './model/rejection.js';
 export { formatRejection } from './model/rejection.js';
 export type {
@@ -48,6 +62,27 @@ export {
   toMetres,
   toMetresPerSecond,
 } from './model/units.js';
+export type { DecodedLogText } from './read/decode-log-text.js';
+export { decodeLogText } from './read/decode-log-text.js';
+export type { ColumnKey, ColumnReportEntry, LogInput, LogReadResult, ReadOptions } from './read/log-read-result.js';
+export type { CsvColumnMap, MappedColumn, TimeForm } from './read/map-csv-columns.js';
+export { guessColumnFromName, mapCsvColumns } from './read/map-csv-columns.js';
+export type { CoordinateAxis, CoordinateForm, ParsedCoordinate } from './read/parse-coordinate.js';
+export { parseCoordinate } from './read/parse-coordinate.js';
+export type { ParsedTime } from './read/parse-log-time.js';
+export { EARLIEST_TIME_MS, LATEST_TIME_MS, LogTimeParser } from './read/parse-log-time.js';
+export type { CsvLayout, LogTextInput } from './read/read-csv.js';
+export { detectDelimiter, readCsv, readCsvEvents, splitCsvRecord } from './read/read-csv.js';
+export type { ReadEvent } from './read/read-event.js';
+export { readGeoJson, readGeoJsonEvents } from './read/read-geojson.js';
+export { readGpx, readGpxEvents } from './read/read-gpx.js';
+export { readKml } from './read/read-kml.js';
+export { detectFormat, readLog, readLogAndValidate } from './read/read-log.js';
+export { computeNmeaChecksum, readNmea, readNmeaEvents } from './read/read-nmea.js';
+export type { LogLine } from './read/split-log-lines.js';
+export { MAX_LINE_CHARS, splitLogLines } from './read/split-log-lines.js';
+export type { GpxSchemaMessage, GpxValidation } from './read/validate-gpx.js';
+export { validateGpx } from './read/validate-gpx.js';
 export type { PathSoundSpeed } from './resolve/create-path-sound-speed.js';
 export { createPathSoundSpeed } from './resolve/create-path-sound-speed.js';
 export type { ResolveReport } from './resolve/format-resolve-result.js';
@@ -85,4 +120,15 @@ export {
 } from './resolve/sound-speed.js';
 export type { MovementSummary } from './resolve/summarise-movement.js';
 export { summariseMovement } from './resolve/summarise-movement.js';
+export type { DiveSummary, SummariseDiveOptions, SummaryPosition } from './summarise/summarise-dive.js';
+export { summariseDive } from './summarise/summarise-dive.js';
 export { LEADLINE_VERSION } from './version.js';
+export type { WriteCsvOptions } from './write/write-csv.js';
+export { writeCsv } from './write/write-csv.js';
+export type { GeoJsonArea, WriteGeoJsonOptions } from './write/write-geojson.js';
+export { GEOJSON_MEDIA_TYPE, writeGeoJson } from './write/write-geojson.js';
+export type { WriteGpxOptions } from './write/write-gpx.js';
+export { LEADLINE_GPX_NAMESPACE, writeGpx } from './write/write-gpx.js';
+export type { WriteInput } from './write/write-input.js';
+export type { WriteKmlOptions } from './write/write-kml.js';
+export { KML_MEDIA_TYPE, writeKml } from './write/write-kml.js';

@@ -50,3 +50,16 @@ export function loadEpsgIndex(): readonly EpsgRecord[] {
   }
   return fullIndex;
 }
+
+/**
+ * Accuracy in metres of a record's datum step to WGS 84: 0 when its definition is on WGS 84 or a
+ * zero shift (ETRS89, NAD83 and the like, as PROJ's ballpark treats them), else the dataset's stated
+ * value, else `undefined`.
+ */
+export function statedAccuracyM(record: EpsgRecord): number | undefined {
+  const def = record.proj4 ?? '';
+  if (/\+datum=WGS84\b/.test(def)) return 0;
+  const shift = /\+towgs84=([^\s]+)/.exec(def)?.[1];
+  if (shift?.split(',').every((v) => Number(v) === 0) === true && !/\+nadgrids=/.test(def)) return 0;
+  return typeof record.accuracy === 'number' ? record.accuracy : undefined;
+}

@@ -1,6 +1,6 @@
 import proj4 from 'proj4';
 import { InvalidArgumentError } from '../errors.js';
-import { type EpsgRecord, loadEpsgRecord } from './epsg-data.js';
+import { type EpsgRecord, loadEpsgRecord, statedAccuracyM } from './epsg-data.js';
 
 /** How a CRS's coordinates are turned into WGS 84 and back. */
 export type CrsMethod = 'proj4' | 'proj4-with-grid' | 'helmert-fallback';
@@ -67,6 +67,14 @@ const HELMERT_FALLBACKS: Readonly<Record<string, HelmertFallback>> = {
   },
 };
 
+const KIND_WORDS: Readonly<Record<string, string>> = {
+  'CRS-VERTCRS': 'vertical',
+  'CRS-COMPOUNDCRS': 'compound',
+  'CRS-ENGCRS': 'engineering',
+  'CRS-GCENCRS': 'geocentric',
+  'CRS-DRVDCRS': 'derived',
+};
+
 const resolvedCache = new Map<string, ResolvedCrs>();
 const loadedGrids = new Set<string>();
 
@@ -83,12 +91,6 @@ function areaOfUse(record: EpsgRecord): ResolvedCrs['areaOfUse'] {
   if (!record.bbox) return undefined;
   const [north, west, south, east] = record.bbox;
   return { west, south, east, north, description: record.area ?? '' };
-}
-
-function datumIsWgs84Equivalent(def: string): boolean {
-  if (/\+datum=WGS84\b/.test(def)) return true;
-  const shift = /\+towgs84=([^\s]+)/.exec(def)?.[1];
-  return shift?.split(',').every((v) => Number(v) === 0) === true;
 }
 
 /**
@@ -109,19 +111,15 @@ export function resolveCrs(input: string, options: ResolveCrsOptions = {}): Reso
   if (cached) return cached;
   const record = loadEpsgRecord(code);
   if (!record) throw new InvalidArgumentError(`EPSG:${code} is not in the EPSG dataset Leadline carries`);
-  if (record.kind !== 'CRS-PROJCRS' && record.kind !== 'CRS-GEOGCRS')
+  if (record.kind !== 'CRS-PROJCRS' && record.kind !== 'CRS-GEOGCRS' && record.kind !== 'CRS-GEOG3DCRS')
     throw new InvalidArgumentError(
-      `EPSG:${code} (${record.name}) is a ${record.kind.replace('CRS-', '').toLowerCase()} CRS; expected a geographic or projected CRS`,
+      `EPSG:${code} (${record.name}) is a ${KIND_WORDS[record.kind] ?? record.kind} CRS; expected a geographic or projected CRS`,
     );
   if (!record.proj4) throw new InvalidArgumentError(`EPSG:${code} (${record.name}) has no definition Leadline can run`);
   const kind = record.kind === 'CRS-PROJCRS' ? 'projected' : 'geographic';
   let def = record.proj4.replace(/\s*\+type=crs\b/, '');
   let method: CrsMethod = 'proj4';
-  let accuracyM: number | undefined = datumIsWgs84Equivalent(def)
-    ? 0
-    : typeof record.accuracy === 'number'
-      ? record.accuracy
-      : undefined;
+  let accuracyM: number | undefined = statedAccuracyM(record);
   let note: string;
   const gridNames = (/\+nadgrids=([^\s]+)/.exec(def)?.[1] ?? '')
     .split(',')

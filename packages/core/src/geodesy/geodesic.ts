@@ -105,7 +105,7 @@ export function geodesicPolygonArea(latDeg: ArrayLike<number>, lonDeg: ArrayLike
     if (Number.isNaN(lat) || Number.isNaN(lon)) continue;
     polygon.AddPoint(lat, lon);
   }
-  const r = polygon.Compute(false, false);
+  const r = polygon.Compute(false, true);
   if (r.number < 3) return { areaM2: 0, perimeterM: r.number < 2 ? 0 : r.perimeter };
   return { areaM2: Math.abs(r.area ?? 0), perimeterM: r.perimeter };
 }

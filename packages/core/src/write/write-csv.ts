@@ -1,0 +1,134 @@
+import { createReprojection } from '../crs/create-reprojection.js';
+import type { ResolvedCrs } from '../crs/resolve-crs.js';
+import type { FixColumnName } from '../model/track.js';
+import { formatDecimal, formatIsoTime } from './format-decimal.js';
+import { segmentRanges, type WriteInput } from './write-input.js';
+
+/** Options of `writeCsv`. */
+export interface WriteCsvOptions {
+  /**
+   * Also write coordinates in this CRS (from `resolveCrs`, or `chooseUtmZone` then `resolveCrs`):
+   * `easting_m`/`northing_m` for a projected CRS in metres, `easting_<unit>`/`northing_<unit>`
+   * otherwise, `crs_lon_deg`/`crs_lat_deg` for a geographic one. `lat`/`lon` (WGS 84) are always kept.
+   */
+  crs?: ResolvedCrs;
+  /** Decimal places of WGS 84 degrees (default 8, about 1 mm) and of projected coordinates (default 3). */
+  degreeDecimals?: number;
+  projectedDecimals?: number;
+  /** Field separator; default `,` (RFC 4180). */
+  separator?: ',' | ';' | '\t';
+}
+
+const OPTIONAL_COLUMNS: ReadonlyArray<readonly [FixColumnName, string]> = [
+  ['depthM', 'depth_m'],
+  ['headingDeg', 'heading_deg'],
+  ['speedMps', 'speed_mps'],
+  ['quality', 'quality'],
+  ['slantRangeM', 'slant_range_m'],
+  ['bearingDeg', 'bearing_deg'],
+  ['surfaceLatDeg', 'surface_lat'],
+  ['surfaceLonDeg', 'surface_lon'],
+  ['surfaceHeadingDeg', 'surface_heading_deg'],
+];
+
+/** Quotes a field per RFC 4180 §2 when it holds the separator, a quote, CR or LF. */
+function quote(field: string, separator: string): string {
+  if (field.includes(separator) || /["\r\n]/.test(field)) return `"${field.replace(/"/g, '""')}"`;
+  return field;
+}
+
+function unitSuffix(unit: string): string {
+  if (/^met(re|er)$/i.test(unit)) return 'm';
+  if (/us survey foot/i.test(unit)) return 'us_ft';
+  if (/foot/i.test(unit)) return 'ft';
+  return unit.toLowerCase().replace(/[^a-z0-9]+/g, '_');
+}
+
+/**
+ * Writes tracks and waypoints as one CSV table (RFC 4180: CRLF line ends, quoted fields where
+ * needed) with the unit in every header name: `track`, `role`, `segment`, `name`, `time` (ISO 8601
+ * UTC), `lat`, `lon` (WGS 84 degrees), the CRS coordinates when `crs` is given, then `depth_m` and
+ * the other per-fix columns that hold a value in any track. Waypoints follow as rows with role
+ * `waypoint`. A value that is missing or cannot be projected is an empty field, never `NaN`.
+ */
+export function writeCsv(input: WriteInput, options: WriteCsvOptions = {}): string {
+  const sep = options.separator ?? ',';
+  const degDecimals = options.degreeDecimals ?? 8;
+  const projDecimals = options.projectedDecimals ?? 3;
+  const crs = options.crs;
+  const reprojection = crs ? createReprojection(crs) : undefined;
+  const crsHeaders: string[] = !crs
+    ? []
+    : crs.kind === 'geographic'
+      ? ['crs_lon_deg', 'crs_lat_deg']
+      : [`easting_${unitSuffix(crs.unit)}`, `northing_${unitSuffix(crs.unit)}`];
+  const crsDecimals = crs?.kind === 'geographic' ? degDecimals : projDecimals;
+  const used = OPTIONAL_COLUMNS.filter(([column]) =>
+    input.tracks.some((t) => t.columns[column].some((v) => !Number.isNaN(v))),
+  );
+  const hasWaypointDepth = input.waypoints.some((w) => Number.isFinite(w.depthM));
+  const columns = [...used];
+  if (hasWaypointDepth && !columns.some(([c]) => c === 'depthM')) columns.unshift(['depthM', 'depth_m']);
+  const header = [
+    'track',
+    'role',
+    'segment',
+    'name',
+    'time',
+    'lat',
+    'lon',
+    ...crsHeaders,
+    ...columns.map(([, h]) => h),
+  ];
+  const rows: string[] = [header.map((h) => quote(h, sep)).join(sep)];
+  for (const track of input.tracks) {
+    const c = track.columns;
+    const projected = reprojection?.forward(c.lonDeg, c.latDeg);
+    const ranges = segmentRanges(track);
+    for (let s = 0; s < ranges.length; s++) {
+      const [start, end] = ranges[s] as [number, number];
+      for (let i = start; i < end; i++) {
+        const fields = [
+          track.id,
+          track.role,
+          String(s + 1),
+          track.name ?? '',
+          formatIsoTime(c.timeMs[i] as number),
+          formatDecimal(c.latDeg[i] as number, degDecimals),
+          formatDecimal(c.lonDeg[i] as number, degDecimals),
+        ];
+        if (projected)
+          fields.push(
+            formatDecimal(projected.x[i] as number, crsDecimals),
+            formatDecimal(projected.y[i] as number, crsDecimals),
+          );
+        for (const [column] of columns) fields.push(formatDecimal(c[column][i] as number));
+        rows.push(fields.map((f) => quote(f, sep)).join(sep));
+      }
+    }
+  }
+  if (input.waypoints.length > 0) {
+    const lat = Float64Array.from(input.waypoints, (w) => w.latDeg);
+    const lon = Float64Array.from(input.waypoints, (w) => w.lonDeg);
+    const projected = reprojection?.forward(lon, lat);
+    input.waypoints.forEach((w, i) => {
+      const fields = [
+        '',
+        'waypoint',
+        '',
+        w.name,
+        formatIsoTime(w.timeMs),
+        formatDecimal(w.latDeg, degDecimals),
+        formatDecimal(w.lonDeg, degDecimals),
+      ];
+      if (projected)
+        fields.push(
+          formatDecimal(projected.x[i] as number, crsDecimals),
+          formatDecimal(projected.y[i] as number, crsDecimals),
+        );
+      for (const [column] of columns) fields.push(column === 'depthM' ? formatDecimal(w.depthM) : '');
+      rows.push(fields.map((f) => quote(f, sep)).join(sep));
+    });
+  }
+  return `${rows.join('\r\n')}\r\n`;
+}

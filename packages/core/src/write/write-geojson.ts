@@ -1,0 +1,212 @@
+import { computeBoundingBox } from '../geodesy/measure-track.js';
+import type { Track } from '../model/track.js';
+import { formatIsoTime } from './format-decimal.js';
+import { segmentRanges, type WriteInput, wrapLongitude } from './write-input.js';
+
+/** The media type of GeoJSON (RFC 7946 §12). */
+export const GEOJSON_MEDIA_TYPE = 'application/geo+json';
+
+/** A closed area to write as a Polygon (for example a survey box or coverage outline). */
+export interface GeoJsonArea {
+  name: string;
+  /** Ring vertices in WGS 84 degrees; closing is added when missing, winding is fixed to RFC 7946's right-hand rule. */
+  latDeg: readonly number[];
+  lonDeg: readonly number[];
+}
+
+/** Options of `writeGeoJson`. */
+export interface WriteGeoJsonOptions {
+  /** Decimal places of coordinates; default 7 (about 1 cm, RFC 7946 §11.2 says 6 ≈ 10 cm). */
+  coordinateDecimals?: number;
+  /** Polygons to add after the tracks and waypoints. */
+  areas?: readonly GeoJsonArea[];
+  /** Indentation for `JSON.stringify`; default none (compact). */
+  indent?: number;
+}
+
+interface Piece {
+  coords: number[][];
+  times: (string | null)[];
+  depthsM: (number | null)[];
+}
+
+function round(value: number, decimals: number): number {
+  const f = 10 ** decimals;
+  return Math.round(value * f) / f + 0;
+}
+
+// Splits a line where consecutive points are more than 180° apart in longitude (it crosses the
+// antimeridian the short way), adding the crossing point on both sides (RFC 7946 §3.1.9).
+function splitAtAntimeridian(track: Track, start: number, end: number, decimals: number): Piece[] {
+  const c = track.columns;
+  const pieces: Piece[] = [];
+  let piece: Piece = { coords: [], times: [], depthsM: [] };
+  let prev = -1;
+  const push = (p: Piece, lon: number, lat: number, timeMs: number, depthM: number) => {
+    p.coords.push([round(lon, decimals), round(lat, decimals)]);
+    const iso = formatIsoTime(timeMs);
+    p.times.push(iso === '' ? null : iso);
+    p.depthsM.push(Number.isFinite(depthM) ? depthM : null);
+  };
+  for (let i = start; i < end; i++) {
+    const lat = c.latDeg[i] as number;
+    const lon = wrapLongitude(c.lonDeg[i] as number);
+    if (!Number.isFinite(lat) || !Number.isFinite(lon)) continue;
+    if (prev >= 0) {
+      const lat0 = c.latDeg[prev] as number;
+      const lon0 = wrapLongitude(c.lonDeg[prev] as number);
+      const d = lon - lon0;
+      if (Math.abs(d) > 180) {
+        // Eastward crossing when going from +179 to -179 (d < -180).
+        const east = d < -180;
+        const lonUnwrapped = east ? lon + 360 : lon - 360;
+        const edge = east ? 180 : -180;
+        const w = (edge - lon0) / (lonUnwrapped - lon0);
+        const latX = lat0 + w * (lat - lat0);
+        const t0 = c.timeMs[prev] as number;
+        const t1 = c.timeMs[i] as number;
+        const z0 = c.depthM[prev] as number;
+        const z1 = c.depthM[i] as number;
+        const tX = t0 + w * (t1 - t0);
+        const zX = z0 + w * (z1 - z0);
+        push(piece, edge, latX, tX, zX);
+        pieces.push(piece);
+        piece = { coords: [], times: [], depthsM: [] };
+        push(piece, -edge, latX, tX, zX);
+      }
+    }
+    push(piece, lon, lat, c.timeMs[i] as number, c.depthM[i] as number);
+    prev = i;
+  }
+  pieces.push(piece);
+  return pieces.filter((p) => p.coords.length > 0);
+}
+
+function trackFeature(track: Track, decimals: number): object | undefined {
+  const pieces = segmentRanges(track).flatMap(([s, e]) => splitAtAntimeridian(track, s, e, decimals));
+  if (pieces.length === 0) return undefined;
+  // A LineString needs two or more positions (RFC 7946 §3.1.4): a one-fix piece repeats its point.
+  for (const p of pieces) {
+    if (p.coords.length === 1) {
+      p.coords.push([...(p.coords[0] as number[])]);
+      p.times.push(p.times[0] ?? null);
+      p.depthsM.push(p.depthsM[0] ?? null);
+    }
+  }
+  const lats: number[] = [];
+  const lons: number[] = [];
+  for (const p of pieces)
+    for (const [lon, lat] of p.coords) {
+      lats.push(lat as number);
+      lons.push(lon as number);
+    }
+  const box = computeBoundingBox(lats, lons);
+  const single = pieces.length === 1 ? pieces[0] : undefined;
+  return {
+    type: 'Feature',
+    ...(box ? { bbox: [box.west, box.south, box.east, box.north].map((v) => round(v, decimals)) } : {}),
+    properties: {
+      id: track.id,
+      name: track.name ?? track.id,
+      role: track.role,
+      sourceFile: track.provenance.sourceFile,
+      // Per-position values parallel to the coordinates (nested like them for a MultiLineString).
+      times: single ? single.times : pieces.map((p) => p.times),
+      depthsM: single ? single.depthsM : pieces.map((p) => p.depthsM),
+    },
+    geometry: single
+      ? { type: 'LineString', coordinates: single.coords }
+      : { type: 'MultiLineString', coordinates: pieces.map((p) => p.coords) },
+  };
+}
+
+function areaFeature(area: GeoJsonArea, decimals: number): object | undefined {
+  const ring: number[][] = [];
+  const n = Math.min(area.latDeg.length, area.lonDeg.length);
+  for (let i = 0; i < n; i++) {
+    const lat = area.latDeg[i] as number;
+    const lon = area.lonDeg[i] as number;
+    if (Number.isFinite(lat) && Number.isFinite(lon))
+      ring.push([round(wrapLongitude(lon), decimals), round(lat, decimals)]);
+  }
+  const first = ring[0];
+  const last = ring[ring.length - 1];
+  if (first && last && (first[0] !== last[0] || first[1] !== last[1])) ring.push([...first]);
+  if (ring.length < 4) return undefined;
+  // Shoelace sign on longitudes unwrapped along the ring: positive = counter-clockwise (RFC 7946 §3.1.6).
+  let twiceArea = 0;
+  let lonPrev = (ring[0] as number[])[0] as number;
+  const unwrapped: number[] = [lonPrev];
+  for (let i = 1; i < ring.length; i++) {
+    let lon = (ring[i] as number[])[0] as number;
+    while (lon - lonPrev > 180) lon -= 360;
+    while (lon - lonPrev < -180) lon += 360;
+    unwrapped.push(lon);
+    lonPrev = lon;
+  }
+  for (let i = 0; i + 1 < ring.length; i++)
+    twiceArea +=
+      (unwrapped[i] as number) * ((ring[i + 1] as number[])[1] as number) -
+      (unwrapped[i + 1] as number) * ((ring[i] as number[])[1] as number);
+  if (twiceArea < 0) ring.reverse();
+  return {
+    type: 'Feature',
+    properties: { name: area.name, kind: 'area' },
+    geometry: { type: 'Polygon', coordinates: [ring] },
+  };
+}
+
+/**
+ * Writes tracks, waypoints and optional areas as an RFC 7946 GeoJSON FeatureCollection: positions
+ * `[lon, lat]` in WGS 84 (no `crs` member, no third element: depth is below the sea surface, not a
+ * height above the ellipsoid), rounded to 7 decimals by default; one Feature per track (a
+ * MultiLineString when it has several segments or crosses the antimeridian, which it is cut at),
+ * with per-position `times` (ISO 8601 UTC) and `depthsM` arrays in `properties`; waypoints as
+ * Points with `depthM` and `time`; areas as Polygons wound counter-clockwise (right-hand rule);
+ * `bbox` `[west, south, east, north]` with west > east across the antimeridian. Fixes without a
+ * position are left out. Serve it as `application/geo+json`.
+ */
+export function writeGeoJson(input: WriteInput, options: WriteGeoJsonOptions = {}): string {
+  const decimals = options.coordinateDecimals ?? 7;
+  const features: object[] = [];
+  for (const t of input.tracks) {
+    const f = trackFeature(t, decimals);
+    if (f) features.push(f);
+  }
+  const lats: number[] = [];
+  const lons: number[] = [];
+  for (const t of input.tracks)
+    for (let i = 0; i < t.length; i++) {
+      lats.push(t.columns.latDeg[i] as number);
+      lons.push(t.columns.lonDeg[i] as number);
+    }
+  for (const w of input.waypoints) {
+    if (!Number.isFinite(w.latDeg) || !Number.isFinite(w.lonDeg)) continue;
+    lats.push(w.latDeg);
+    lons.push(w.lonDeg);
+    const time = formatIsoTime(w.timeMs);
+    features.push({
+      type: 'Feature',
+      properties: {
+        name: w.name,
+        ...(w.description === undefined ? {} : { description: w.description }),
+        depthM: Number.isFinite(w.depthM) ? w.depthM : null,
+        time: time === '' ? null : time,
+      },
+      geometry: { type: 'Point', coordinates: [round(wrapLongitude(w.lonDeg), decimals), round(w.latDeg, decimals)] },
+    });
+  }
+  for (const a of options.areas ?? []) {
+    const f = areaFeature(a, decimals);
+    if (f) features.push(f);
+    lats.push(...a.latDeg);
+    lons.push(...a.lonDeg);
+  }
+  const box = computeBoundingBox(lats, lons);
+  const collection = {
+    type: 'FeatureCollection',
+    ...(box ? { bbox: [box.west, box.south, box.east, box.north].map((v) => round(v, decimals)) } : {}),
+    features,
+  };
+  return `${JSON.stringify(collection, null, options.indent)}\n`;
+}
