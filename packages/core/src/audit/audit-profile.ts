@@ -24,6 +24,8 @@ export interface UncertaintyModel {
 export interface AuditProfile {
   name: string;
   description: string;
+  /** A gap longer than this many times the log's typical fix interval is an `info` finding. */
+  gapFactor: number;
   /** A gap between consecutive fixes longer than this is a `warn` finding, seconds. */
   gapWarnS: number;
   /** ... and longer than this a `fail` finding, seconds. */
@@ -66,7 +68,11 @@ export interface AuditProfile {
   surfaceDepthM: number;
   /** Dive splitting: a stay at the surface longer than this ends a dive, seconds. */
   surfaceIntervalS: number;
-  /** Smoothing: standard deviation of the vehicle's unmodelled acceleration, m/s². */
+  /**
+   * Smoothing: standard deviation of the vehicle's unmodelled acceleration, m/s². About half the
+   * platform's acceleration in its tightest usual turns (common practice for tuning a
+   * constant-velocity filter: too small lags in turns, too large passes the noise through).
+   */
   smoothingAccelerationMps2: number;
 }
 
@@ -74,8 +80,9 @@ export interface AuditProfile {
 export type PresetProfileName = 'inspection-rov' | 'work-rov' | 'diver' | 'towed-body';
 
 // Values shared by every preset unless a preset says otherwise, all common practice:
-// - gaps: a USBL normally delivers a fix every 1-2 s; 20 s without one is worth a look, 2 min
-//   means the vehicle track between them is guesswork.
+// - gaps: five missed updates in a row (5x the log's own interval) are worth noting; a USBL
+//   normally delivers a fix every 1-2 s, so 20 s without one needs a look and 2 min means the
+//   vehicle track between them is guesswork.
 // - fix rate: fewer than one fix per 5 s over a minute (0.2 Hz) is a weak acoustic link.
 // - position jumps: 4x the local spread keeps Gaussian noise false alarms near 1 in 10^4 (the
 //   Hampel identifier's usual 3-4 sigma); the floor stops sub-metre wobble of pre-filtered logs
@@ -88,6 +95,7 @@ export type PresetProfileName = 'inspection-rov' | 'work-rov' | 'diver' | 'towed
 // - uncertainty: GNSS 2 m at 95 % (SBAS-corrected single receiver), heading 0.5 deg at 95 %
 //   (GNSS or gyro compass), depth sensor 0.1 m + 0.1 % of depth (typical strain-gauge sensor).
 const COMMON = {
+  gapFactor: 5,
   gapWarnS: 20,
   gapFailS: 120,
   minFixRateHz: 0.2,
@@ -122,7 +130,7 @@ export const PRESET_PROFILES: Readonly<Record<PresetProfileName, AuditProfile>> 
     depthJumpFloorM: 1,
     maxRangeM: 400,
     uncertainty: { ...COMMON_UNCERTAINTY, usblRangeFraction: 0.01, usblFloorM: 0.2 },
-    smoothingAccelerationMps2: 0.2,
+    smoothingAccelerationMps2: 0.5,
   },
   // Heavy hydraulic vehicles: rarely above 1.5 m/s (3 kn), sluggish (0.5 m/s²), work from a tether
   // management system to 1-3 km, positioned by higher-grade USBL (about 0.25 % of slant range).
@@ -137,7 +145,7 @@ export const PRESET_PROFILES: Readonly<Record<PresetProfileName, AuditProfile>> 
     depthJumpFloorM: 1.5,
     maxRangeM: 3000,
     uncertainty: { ...COMMON_UNCERTAINTY, usblRangeFraction: 0.0025, usblFloorM: 0.1 },
-    smoothingAccelerationMps2: 0.1,
+    smoothingAccelerationMps2: 0.25,
   },
   // Divers: sustained swimming 0.3-0.7 m/s, a sprint about 1 m/s; ascent 9-18 m/min (0.15-0.3 m/s)
   // is what training agencies teach, free descent up to about 1 m/s; a diver transponder often
@@ -156,7 +164,7 @@ export const PRESET_PROFILES: Readonly<Record<PresetProfileName, AuditProfile>> 
     depthJumpFloorM: 1,
     maxRangeM: 300,
     uncertainty: { ...COMMON_UNCERTAINTY, usblRangeFraction: 0.01, usblFloorM: 0.3 },
-    smoothingAccelerationMps2: 0.2,
+    smoothingAccelerationMps2: 0.25,
   },
   // Towed bodies (camera sleds, sonars): towed at 1-2.5 m/s (2-5 kn), top about 3.5 m/s; they
   // cannot stop or turn quickly (0.3 m/s²); cables of up to about 2 km.
@@ -171,7 +179,7 @@ export const PRESET_PROFILES: Readonly<Record<PresetProfileName, AuditProfile>> 
     depthJumpFloorM: 1.5,
     maxRangeM: 2000,
     uncertainty: { ...COMMON_UNCERTAINTY, usblRangeFraction: 0.005, usblFloorM: 0.2 },
-    smoothingAccelerationMps2: 0.1,
+    smoothingAccelerationMps2: 0.15,
   },
 };
 

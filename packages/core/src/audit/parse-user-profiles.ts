@@ -20,6 +20,7 @@ export const AuditProfileSchema = z
   .strictObject({
     name: z.string().min(1),
     description: z.string(),
+    gapFactor: positive,
     gapWarnS: positive,
     gapFailS: positive,
     minFixRateHz: nonNegative,

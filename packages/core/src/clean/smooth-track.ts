@@ -61,8 +61,7 @@ export function smoothTrack(track: Track, options: SmoothOptions): SmoothResult 
   const { eastM: zE, northM: zN } = frame.forwardColumns(latDeg, lonDeg);
   const usable = new Uint8Array(n);
   for (let i = 0; i < n; i++)
-    usable[i] =
-      isPlausiblePosition(latDeg[i] as number, lonDeg[i] as number) && !(flags !== undefined && flags[i]) ? 1 : 0;
+    usable[i] = isPlausiblePosition(latDeg[i] as number, lonDeg[i] as number) && !flags?.[i] ? 1 : 0;
 
   // filtered state per fix and the shared covariance (east and north see the same noise)
   const xE = new Float64Array(n);
