@@ -120,6 +120,38 @@ export {
 } from './resolve/sound-speed.js';
 export type { MovementSummary } from './resolve/summarise-movement.js';
 export { summariseMovement } from './resolve/summarise-movement.js';
+export type { AcousticObservation, AcousticSetup, LeverArm, TopsideFix } from './simulate/acoustic-geometry.js';
+export { locateTransceiver, observeVehicle, solveTopsideFix } from './simulate/acoustic-geometry.js';
+export type { RandomSource } from './simulate/create-random-source.js';
+export { createRandomSource, deriveSeed } from './simulate/create-random-source.js';
+export { formatDiveTruth, OBSERVATION_CONVENTIONS } from './simulate/format-dive-truth.js';
+export type {
+  LocalPoint,
+  VehicleFlightPlan,
+  VehiclePathSamples,
+  VehiclePattern,
+} from './simulate/sample-vehicle-path.js';
+export { sampleVehiclePath } from './simulate/sample-vehicle-path.js';
+export type {
+  DiveSpec,
+  DiveTruth,
+  FaultModel,
+  InjectedFault,
+  InjectedFaultKind,
+  NoiseModel,
+  SimulatedDive,
+  SimulatedSite,
+  SimulatedSurfaceLog,
+  SimulatedVehicleLog,
+  SurfaceUnitPlan,
+} from './simulate/simulate-dive.js';
+export { simulateDive } from './simulate/simulate-dive.js';
+export type { DemoSite, PlannedDive, SeasonDive, SeasonOptions } from './simulate/simulate-season.js';
+export { DEMO_SITES, planSeason, simulatePlannedDive, simulateSeason } from './simulate/simulate-season.js';
+export type { VehiclePlatform, VehiclePlatformName } from './simulate/vehicle-platforms.js';
+export { VEHICLE_PLATFORMS } from './simulate/vehicle-platforms.js';
+export type { LogDialect, SimulatedFile } from './simulate/write-dive-logs.js';
+export { diveFileBase, LOG_DIALECTS, writeDiveLogs } from './simulate/write-dive-logs.js';
 export type { DiveSummary, SummariseDiveOptions, SummaryPosition } from './summarise/summarise-dive.js';
 export { summariseDive } from './summarise/summarise-dive.js';
 export { LEADLINE_VERSION } from './version.js';
