@@ -2,15 +2,13 @@ import { z } from 'zod';
 import type { RouteSpec } from './route-table.js';
 
 /** The one error body, as a schema: every error response of the API has this shape. */
-export const ErrorBodySchema = z
-  .object({
-    error: z.object({
-      code: z.string().describe('Stable machine-readable code, e.g. not-found'),
-      message: z.string().describe('What went wrong and what to do, for people'),
-      details: z.unknown().optional(),
-    }),
-  })
-  .meta({ id: 'ErrorBody' });
+export const ErrorBodySchema = z.object({
+  error: z.object({
+    code: z.string().describe('Stable machine-readable code, e.g. not-found'),
+    message: z.string().describe('What went wrong and what to do, for people'),
+    details: z.unknown().optional(),
+  }),
+});
 
 const ERROR_DESCRIPTIONS: Record<number, string> = {
   400: 'The request is not valid (path, query or body)',

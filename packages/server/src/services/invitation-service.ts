@@ -69,22 +69,30 @@ export async function acceptInvitation(
   deps: Deps,
   input: { token: string; displayName?: string | undefined; password?: string | undefined },
 ): Promise<{ userId: string; organisationId: string; role: Role }> {
-  const link = await deps.links.consume('invitation', hashSecret(input.token), deps.now());
+  const secretHash = hashSecret(input.token);
+  const expired = 'This invitation link is unknown, already used or expired; ask for a new one.';
+  const found = await deps.links.findUsable('invitation', secretHash, deps.now());
+  if (found === undefined) throw new AppError('not-found', expired);
+  let user = await deps.users.findUserByEmail(found.email);
+  // Check what a new account needs before using the link up, so a missing field does not waste it.
+  const { displayName, password } = input;
+  const newAccount = displayName !== undefined && password !== undefined ? { displayName, password } : undefined;
+  if (user === undefined && newAccount === undefined)
+    throw new AppError('unprocessable', 'A new account needs a display name and a password.', {
+      fields: ['displayName', 'password'],
+    });
+  const link = await deps.links.consume('invitation', secretHash, deps.now());
   if (link === undefined || link.organisationId === null || link.role === null)
-    throw new AppError('not-found', 'This invitation link is unknown, already used or expired; ask for a new one.');
-  let user = await deps.users.findUserByEmail(link.email);
-  if (user === undefined) {
-    if (input.displayName === undefined || input.password === undefined)
-      throw new AppError('unprocessable', 'A new account needs a display name and a password.', {
-        fields: ['displayName', 'password'],
-      });
+    throw new AppError('not-found', expired);
+  if (user === undefined && newAccount !== undefined) {
     const created = await deps.users.createUser({
       email: link.email,
-      displayName: input.displayName,
-      passwordHash: await hashPassword(input.password),
+      displayName: newAccount.displayName,
+      passwordHash: await hashPassword(newAccount.password),
     });
     user = { ...created, passwordHash: null };
   }
+  if (user === undefined) throw new AppError('unprocessable', 'A new account needs a display name and a password.');
   await deps.users.addMembership(link.organisationId, user.id, link.role);
   await deps.activity.append({
     organisationId: link.organisationId,

@@ -33,6 +33,8 @@ export interface EmailLinkStore {
    * `undefined` otherwise. One statement, so two concurrent uses cannot both succeed.
    */
   consume(kind: EmailLinkKind, secretHash: string, now: Date): Promise<EmailLinkRecord | undefined>;
+  /** The link if it is unused and unexpired at `now`, without using it up. */
+  findUsable(kind: EmailLinkKind, secretHash: string, now: Date): Promise<EmailLinkRecord | undefined>;
   listPendingInvitations(organisationId: string, now: Date): Promise<EmailLinkRecord[]>;
 }
 
@@ -89,6 +91,14 @@ export function createKnexEmailLinkStore(db: Knex): EmailLinkStore {
         .where('expires_at', '>', now)
         .update({ used_at: now })
         .returning<LinkRow[]>(COLUMNS);
+      return row === undefined ? undefined : toRecord(row);
+    },
+    async findUsable(kind, secretHash, now) {
+      const row: LinkRow | undefined = await db('email_links')
+        .where({ kind, secret_hash: secretHash })
+        .whereNull('used_at')
+        .where('expires_at', '>', now)
+        .first(COLUMNS);
       return row === undefined ? undefined : toRecord(row);
     },
     async listPendingInvitations(organisationId, now) {

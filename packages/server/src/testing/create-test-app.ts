@@ -15,8 +15,6 @@ export interface TestApp {
   app: Express;
   routes: readonly RouteSpec[];
   mailbox: FakeSmtpServer;
-  /** An `Origin` header value the CSRF check accepts for supertest requests. */
-  origin: string;
   close(): Promise<void>;
 }
 
@@ -42,7 +40,6 @@ export async function createTestApp(
     app,
     routes,
     mailbox,
-    origin: 'http://127.0.0.1',
     close: async () => {
       mailer.close();
       await sessions.close();
@@ -86,7 +83,7 @@ export async function signedInAgent(testApp: TestApp, email: string) {
   const agent = request.agent(testApp.app);
   await agent
     .post('/api/v1/session')
-    .set('Origin', testApp.origin)
+    .set('Sec-Fetch-Site', 'same-origin')
     .send({ email, password: TEST_PASSWORD })
     .expect(200);
   return agent;
