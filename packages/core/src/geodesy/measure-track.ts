@@ -138,7 +138,7 @@ export function computeBoundingBox(latDeg: ArrayLike<number>, lonDeg: ArrayLike<
     if (Number.isNaN(lat) || Number.isNaN(lon)) continue;
     if (lat < south) south = lat;
     if (lat > north) north = lat;
-    lons[m++] = ((((lon + 180) % 360) + 360) % 360) - 180;
+    lons[m++] = lon >= -180 && lon < 180 ? lon : ((((lon + 180) % 360) + 360) % 360) - 180;
   }
   if (m === 0) return undefined;
   const sorted = lons.subarray(0, m).sort();

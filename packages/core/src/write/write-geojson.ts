@@ -69,10 +69,11 @@ function splitAtAntimeridian(track: Track, start: number, end: number, decimals:
         const z1 = c.depthM[i] as number;
         const tX = t0 + w * (t1 - t0);
         const zX = z0 + w * (z1 - z0);
-        push(piece, edge, latX, tX, zX);
+        // A fix exactly on the antimeridian is itself the crossing point: do not repeat it.
+        if (w > 1e-12) push(piece, edge, latX, tX, zX);
         pieces.push(piece);
         piece = { coords: [], times: [], depthsM: [] };
-        push(piece, -edge, latX, tX, zX);
+        if (w < 1 - 1e-12) push(piece, -edge, latX, tX, zX);
       }
     }
     push(piece, lon, lat, c.timeMs[i] as number, c.depthM[i] as number);

@@ -52,11 +52,14 @@ function pointBody(
   }
 }
 
+function formatLongitude(lonDeg: number, decimals: number | undefined): string {
+  const lon = formatDecimal(wrapLongitude(lonDeg), decimals);
+  // Rounding may turn 179.99999999 into 180, which gpx.xsd forbids (longitudeType: lon < 180).
+  return Number(lon) >= 180 ? '-180' : lon;
+}
+
 function latLonAttributes(latDeg: number, lonDeg: number, decimals: number | undefined): string {
-  let lon = formatDecimal(wrapLongitude(lonDeg), decimals);
-  // Rounding may turn 179.99999999 into 180, which gpx.xsd forbids (lon < 180).
-  if (Number(lon) >= 180) lon = formatDecimal(-180, decimals);
-  return `lat="${formatDecimal(latDeg, decimals)}" lon="${lon}"`;
+  return `lat="${formatDecimal(latDeg, decimals)}" lon="${formatLongitude(lonDeg, decimals)}"`;
 }
 
 function writeWaypoint(lines: string[], w: Waypoint, decimals: number | undefined): void {
@@ -74,28 +77,59 @@ function writeWaypoint(lines: string[], w: Waypoint, decimals: number | undefine
   lines.push('  </wpt>');
 }
 
-function writeTrack(lines: string[], track: Track, decimals: number | undefined): void {
+/** A track none of whose fixes has a time is a planned line: GPX says that with `rte`, not `trk`. */
+function isRoute(track: Track): boolean {
+  return track.length > 0 && track.columns.timeMs.every((t) => Number.isNaN(t));
+}
+
+function writePoints(
+  lines: string[],
+  track: Track,
+  start: number,
+  end: number,
+  tag: string,
+  indent: string,
+  decimals: number | undefined,
+): void {
   const c = track.columns;
-  lines.push('  <trk>');
+  for (let i = start; i < end; i++) {
+    const lat = c.latDeg[i] as number;
+    const lon = c.lonDeg[i] as number;
+    if (!Number.isFinite(lat) || !Number.isFinite(lon)) continue;
+    lines.push(`${indent}<${tag} ${latLonAttributes(lat, lon, decimals)}>`);
+    const extensions: string[] = [];
+    for (const [column, element] of EXTENSION_COLUMNS) {
+      const value = c[column][i] as number;
+      if (Number.isFinite(value)) extensions.push(`<leadline:${element}>${formatDecimal(value)}</leadline:${element}>`);
+    }
+    pointBody(lines, `${indent}  `, c.depthM[i] as number, c.timeMs[i] as number, {}, extensions);
+    lines.push(`${indent}</${tag}>`);
+  }
+}
+
+function writeTrackHead(lines: string[], track: Track): void {
+  // trkType and rteType child order: name, cmt, desc, src, link, number, type, extensions (gpx.xsd).
   lines.push(`    <name>${escapeXml(track.name ?? track.id)}</name>`);
   if (track.provenance.sourceFile !== '') lines.push(`    <src>${escapeXml(track.provenance.sourceFile)}</src>`);
   lines.push(`    <type>${track.role}</type>`);
+}
+
+function writeTrack(lines: string[], track: Track, decimals: number | undefined): void {
+  if (isRoute(track)) {
+    // A route has no segments: one rte per segment keeps every point.
+    for (const [start, end] of segmentRanges(track)) {
+      lines.push('  <rte>');
+      writeTrackHead(lines, track);
+      writePoints(lines, track, start, end, 'rtept', '    ', decimals);
+      lines.push('  </rte>');
+    }
+    return;
+  }
+  lines.push('  <trk>');
+  writeTrackHead(lines, track);
   for (const [start, end] of segmentRanges(track)) {
     lines.push('    <trkseg>');
-    for (let i = start; i < end; i++) {
-      const lat = c.latDeg[i] as number;
-      const lon = c.lonDeg[i] as number;
-      if (!Number.isFinite(lat) || !Number.isFinite(lon)) continue;
-      lines.push(`      <trkpt ${latLonAttributes(lat, lon, decimals)}>`);
-      const extensions: string[] = [];
-      for (const [column, element] of EXTENSION_COLUMNS) {
-        const value = c[column][i] as number;
-        if (Number.isFinite(value))
-          extensions.push(`<leadline:${element}>${formatDecimal(value)}</leadline:${element}>`);
-      }
-      pointBody(lines, '        ', c.depthM[i] as number, c.timeMs[i] as number, {}, extensions);
-      lines.push('      </trkpt>');
-    }
+    writePoints(lines, track, start, end, 'trkpt', '      ', decimals);
     lines.push('    </trkseg>');
   }
   lines.push('  </trk>');
@@ -108,7 +142,8 @@ function writeTrack(lines: string[], track: Track, decimals: number | undefined)
  * `trkseg` per segment. Depth is written as negative `ele` and as `leadline:depth` (metres,
  * positive down) in Leadline's extension namespace, with heading, speed, slant range, bearing,
  * quality and the surface unit's position. Longitudes are wrapped into [-180, 180). Fixes or
- * waypoints without a position cannot be GPX points and are left out; everything else is kept.
+ * waypoints without a position cannot be GPX points and are left out; everything else is kept. A
+ * track with no times at all (a planned line) is written as `rte` so it reads back the same.
  */
 export function writeGpx(input: WriteInput, options: WriteGpxOptions = {}): string {
   const decimals = options.coordinateDecimals;
@@ -137,11 +172,13 @@ export function writeGpx(input: WriteInput, options: WriteGpxOptions = {}): stri
     metadata.push(`    <time>${formatIsoTime(options.timeMs)}</time>`);
   if (box)
     metadata.push(
-      `    <bounds minlat="${formatDecimal(box.south, decimals)}" minlon="${formatDecimal(box.west, decimals)}" maxlat="${formatDecimal(box.north, decimals)}" maxlon="${formatDecimal(box.east, decimals)}"/>`,
+      `    <bounds minlat="${formatDecimal(box.south, decimals)}" minlon="${formatLongitude(box.west, decimals)}" maxlat="${formatDecimal(box.north, decimals)}" maxlon="${formatLongitude(box.east, decimals)}"/>`,
     );
   if (metadata.length > 0) lines.push('  <metadata>', ...metadata, '  </metadata>');
   for (const w of input.waypoints) writeWaypoint(lines, w, decimals);
-  for (const t of input.tracks) writeTrack(lines, t, decimals);
+  // gpx child order: metadata, wpt*, rte*, trk* (gpx.xsd).
+  for (const t of input.tracks) if (isRoute(t)) writeTrack(lines, t, decimals);
+  for (const t of input.tracks) if (!isRoute(t)) writeTrack(lines, t, decimals);
   lines.push('</gpx>');
   return `${lines.join('\n')}\n`;
 }

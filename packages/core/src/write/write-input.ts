@@ -8,6 +8,7 @@ export interface WriteInput {
 
 /** Wraps a longitude into [-180, 180) as GPX and GeoJSON readers expect (+180 becomes −180). */
 export function wrapLongitude(lonDeg: number): number {
+  if (lonDeg >= -180 && lonDeg < 180) return lonDeg; // untouched: no rounding noise
   return ((((lonDeg + 180) % 360) + 360) % 360) - 180;
 }
 
