@@ -76,8 +76,14 @@ describe('runResolve', () => {
     expect(await runResolve(['true-bearings-short-ranges.csv'], options, io, IN)).toBe(0);
     const geojson = JSON.parse(readFileSync(join(out, 'true-bearings-short-ranges.resolved.geojson'), 'utf8')) as {
       type: string;
+      features: Array<{ properties: { resolveSetup?: { declination: unknown } } }>;
     };
     expect(geojson.type).toBe('FeatureCollection');
+    // The setup travels inside the output too.
+    expect(geojson.features[0]?.properties.resolveSetup?.declination).toEqual({
+      method: 'wmm',
+      source: 'World Magnetic Model',
+    });
     const report = JSON.parse(readFileSync(join(out, 'true-bearings-short-ranges.resolve.json'), 'utf8')) as {
       tracks: Array<{ setup: { name: string }; rejections: Array<{ line: number; reason: string }>; fixes: unknown[] }>;
     };
@@ -103,6 +109,26 @@ describe('runResolve', () => {
     expect(await runResolve(['true-bearings-short-ranges.csv'], options, again, IN)).toBe(3);
     expect(again.err()).toContain('add --force');
     expect(await runResolve(['true-bearings-short-ranges.csv'], { ...options, force: true }, capture(), IN)).toBe(0);
+  });
+
+  it('takes a named setup from the config file', async () => {
+    const config = join(dir, 'leadline.config.json');
+    writeFileSync(config, JSON.stringify({ setups: { 'quay-q3': setupOf('quay-fixed-position') } }));
+    const io = capture();
+    const code = await runResolve(
+      ['quay-fixed-position.csv'],
+      { ...baseOptions, jobs: 1, setup: 'quay-q3', config },
+      io,
+      IN,
+    );
+    expect(code).toBe(0);
+    const reports = JSON.parse(io.out()) as ResolveFileReport[];
+    expect(reports[0]?.tracks[0]?.setup.surfacePosition).toMatchObject({ method: 'fixed', latDeg: 59.9021 });
+    const unknown = capture();
+    expect(await runResolve(['quay-fixed-position.csv'], { ...baseOptions, setup: 'pen-9', config }, unknown, IN)).toBe(
+      2,
+    );
+    expect(unknown.err()).toContain('config setups: quay-q3');
   });
 
   it('writes CSV with UTM coordinates when asked', async () => {

@@ -2,22 +2,11 @@ import { readFile } from 'node:fs/promises';
 import { resolve as resolvePath } from 'node:path';
 import {
   InvalidArgumentError as CoreInvalidArgumentError,
-  chooseUtmZone,
-  formatRejection,
-  formatResolveResult,
   parseResolveSetup,
   type ReadOptions,
-  type ResolvedCrs,
   type ResolveReport,
   type ResolveSetup,
-  readLog,
   resolveCrs,
-  resolveTrack,
-  type Track,
-  writeCsv,
-  writeGeoJson,
-  writeGpx,
-  writeKml,
 } from '@leadline/core';
 import { Option } from 'commander';
 import { EXIT_IO, EXIT_OK, EXIT_USAGE } from '../exit-codes.js';
@@ -36,12 +25,18 @@ import {
   startProgress,
   type WrittenOutput,
 } from '../support/index.js';
+import { createTaskPool } from '../support/task-pool.js';
 import type { RegisterCommand } from './index.js';
+import {
+  RESOLVE_FORMATS,
+  type ResolveFormat,
+  type ResolveTaskPayload,
+  type ResolveTaskResult,
+} from './resolve-task.js';
 
-/** Output formats `leadline resolve --to` writes. */
-export const RESOLVE_FORMATS = ['geojson', 'gpx', 'csv', 'kml'] as const;
-/** One output format of `leadline resolve`. */
-export type ResolveFormat = (typeof RESOLVE_FORMATS)[number];
+export { RESOLVE_FORMATS, type ResolveFormat } from './resolve-task.js';
+
+const TASK_MODULE = new URL('./resolve-task.ts', import.meta.url);
 
 /** The options of `leadline resolve`. */
 export interface ResolveOptions extends CommonOptions {
@@ -105,15 +100,16 @@ export async function runResolve(
   cwd: string = process.cwd(),
 ): Promise<number> {
   let setup: ResolveSetup;
-  let crs: ResolvedCrs | 'utm' | undefined;
+
   try {
     const { config } = await loadConfig(options.config, cwd);
     const setupText = options.setup ?? config.defaults?.setup;
     if (setupText === undefined)
       throw new UsageProblem('resolve needs --setup <file|name|JSON> (or defaults.setup in the config file)');
     setup = await loadSetup(setupText, config.setups ?? {}, cwd);
-    crs = options.crs === undefined ? undefined : options.crs.toLowerCase() === 'utm' ? 'utm' : resolveCrs(options.crs);
-    if (crs !== undefined && options.to !== 'csv')
+    // Checked here so a bad CRS is a usage error before any file is read.
+    if (options.crs !== undefined && options.crs.toLowerCase() !== 'utm') resolveCrs(options.crs);
+    if (options.crs !== undefined && options.to !== 'csv')
       throw new UsageProblem('--crs applies to --to csv only (GPX, GeoJSON and KML are always WGS 84)');
   } catch (error) {
     if (
@@ -140,13 +136,44 @@ export async function runResolve(
     ...(options.tz === undefined ? {} : { timeZone: options.tz }),
     ...(options.inputCrs === undefined ? {} : { inputCrs: options.inputCrs }),
   };
-  const results = await runPool(
-    inputs,
-    options.jobs,
-    (input) => resolveOne(input, { setup, readOptions, to: options.to, crs, out }),
-    (done) => progress.update(done),
-  );
-  progress.stop();
+  const pool = createTaskPool(Math.min(options.jobs, inputs.length));
+  let results: Awaited<ReturnType<typeof runPool<InputFile, ResolveFileReport>>>;
+  try {
+    results = await runPool(
+      inputs,
+      options.jobs,
+      async (input) => {
+        const bytes = await readInputBytes(input);
+        out?.recordInput(input, bytes);
+        const payload: ResolveTaskPayload = {
+          displayName: input.displayName,
+          bytes,
+          setup,
+          readOptions,
+          to: options.to,
+          ...(options.crs === undefined ? {} : { crs: options.crs }),
+          withFiles: out !== undefined,
+        };
+        const result = await pool.run<ResolveTaskPayload, ResolveTaskResult>(TASK_MODULE, 'resolveFileTask', payload);
+        const outputs: WrittenOutput[] = [];
+        if (out !== undefined && result.ok)
+          for (const file of result.files)
+            outputs.push(await out.write(out.pathFor(input, file.extension, file.suffix), file.text));
+        return {
+          file: input.displayName,
+          ok: result.ok,
+          ...(result.error === undefined ? {} : { error: result.error }),
+          readRejections: result.readRejections,
+          tracks: result.tracks,
+          outputs,
+        };
+      },
+      (done) => progress.update(done),
+    );
+  } finally {
+    progress.stop();
+    await pool.destroy();
+  }
 
   let exitCode = problems.length > 0 ? EXIT_IO : EXIT_OK;
   const reports: ResolveFileReport[] = results.map((result, i) => {
@@ -208,75 +235,6 @@ function parseJson(text: string, where: string): unknown {
     return JSON.parse(text);
   } catch (error) {
     throw new UsageProblem(`${where}: not valid JSON (${(error as Error).message})`);
-  }
-}
-
-interface ResolveOneContext {
-  setup: ResolveSetup;
-  readOptions: ReadOptions;
-  to: ResolveFormat;
-  crs: ResolvedCrs | 'utm' | undefined;
-  out: OutputFolder | undefined;
-}
-
-async function resolveOne(input: InputFile, context: ResolveOneContext): Promise<ResolveFileReport> {
-  const bytes = await readInputBytes(input);
-  context.out?.recordInput(input, bytes);
-  const read = readLog({ fileName: input.displayName, content: bytes }, context.readOptions);
-  const readRejections = read.rejections.map((r) => ({ line: r.line, reason: r.code, message: formatRejection(r) }));
-  if (read.tracks.length === 0) {
-    const why = read.rejections[0] === undefined ? 'no tracks in the log' : formatRejection(read.rejections[0]);
-    return { file: input.displayName, ok: false, error: why, readRejections, tracks: [], outputs: [] };
-  }
-  const vehicles = read.tracks.filter((t) => t.role === 'vehicle');
-  const surfaces = read.tracks.filter((t) => t.role === 'surface');
-  if (vehicles.length === 0)
-    return {
-      file: input.displayName,
-      ok: false,
-      error:
-        'the log holds only surface unit tracks; re-solving needs the vehicle track with its acoustic observations',
-      readRejections,
-      tracks: [],
-      outputs: [],
-    };
-  const surfaceTrack = surfaces[0];
-  const results = vehicles.map((track) =>
-    resolveTrack(track, context.setup, surfaceTrack === undefined ? {} : { surfaceTrack }),
-  );
-  const tracks = results.map((r) => formatResolveResult(r));
-  const outputs: WrittenOutput[] = [];
-  if (context.out !== undefined) {
-    const resolvedTracks: Track[] = [...results.map((r) => r.track), ...surfaces];
-    const text = writeTracks(resolvedTracks, context.to, context.crs, input.displayName);
-    outputs.push(await context.out.write(context.out.pathFor(input, `.${context.to}`, '.resolved'), text));
-    const detail = results.map((r) => formatResolveResult(r, { fixes: true }));
-    outputs.push(
-      await context.out.write(
-        context.out.pathFor(input, '.json', '.resolve'),
-        `${JSON.stringify({ file: input.displayName, tracks: detail }, null, 2)}\n`,
-      ),
-    );
-  }
-  return { file: input.displayName, ok: true, readRejections, tracks, outputs };
-}
-
-function writeTracks(tracks: Track[], to: ResolveFormat, crs: ResolvedCrs | 'utm' | undefined, name: string): string {
-  const input = { tracks, waypoints: [] };
-  switch (to) {
-    case 'geojson':
-      return writeGeoJson(input);
-    case 'gpx':
-      return writeGpx(input, { name: `${name} (re-solved)` });
-    case 'kml':
-      return writeKml(input, { name: `${name} (re-solved)` });
-    case 'csv': {
-      if (crs === undefined) return writeCsv(input);
-      if (crs !== 'utm') return writeCsv(input, { crs });
-      const lat = tracks.flatMap((t) => Array.from(t.columns.latDeg));
-      const lon = tracks.flatMap((t) => Array.from(t.columns.lonDeg));
-      return writeCsv(input, { crs: resolveCrs(chooseUtmZone(lat, lon).code) });
-    }
   }
 }
 
