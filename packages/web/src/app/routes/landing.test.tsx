@@ -1,5 +1,6 @@
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { render, screen } from '@testing-library/react';
+import { MemoryRouter } from 'react-router-dom';
 import { describe, expect, it } from 'vitest';
 import { LandingPage } from './landing';
 
@@ -9,12 +10,15 @@ describe('LandingPage', () => {
     const client = new QueryClient({ defaultOptions: { queries: { retry: false } } });
     render(
       <QueryClientProvider client={client}>
-        <LandingPage />
+        <MemoryRouter>
+          <LandingPage />
+        </MemoryRouter>
       </QueryClientProvider>,
     );
     expect(screen.getByRole('heading', { level: 1, name: 'Leadline' })).toBeTruthy();
     expect(screen.getByText(/USBL position logs/)).toBeTruthy();
     expect(screen.getByRole('complementary', { name: 'Safety' }).textContent).toMatch(/Not a navigation aid/);
     expect(await screen.findByText(/Server: unreachable/)).toBeTruthy();
+    expect(screen.getByRole('link', { name: 'Look at a simulated dive' }).getAttribute('href')).toBe('/preview/dive');
   });
 });

@@ -1,0 +1,5 @@
+/** Query keys of the auth feature. */
+export const authKeys = {
+  all: ['auth'] as const,
+  me: () => [...authKeys.all, 'me'] as const,
+};
