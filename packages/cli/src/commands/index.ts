@@ -2,6 +2,7 @@ import type { Command } from 'commander';
 import type { CliIo } from '../io.js';
 import { registerCompletion } from './completion.js';
 import { registerResolve } from './resolve.js';
+import { registerSimulate } from './simulate.js';
 
 /** What every verb's registration receives: where to write, and where to leave its exit code. */
 export interface CommandContext {
@@ -14,4 +15,4 @@ export interface CommandContext {
 export type RegisterCommand = (program: Command, context: CommandContext) => void;
 
 /** Every verb, in the order `leadline --help` lists them. Add a verb by adding its register function here. */
-export const COMMANDS: readonly RegisterCommand[] = [registerResolve, registerCompletion];
+export const COMMANDS: readonly RegisterCommand[] = [registerResolve, registerSimulate, registerCompletion];
