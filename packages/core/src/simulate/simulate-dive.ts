@@ -385,6 +385,13 @@ export function simulateDive(spec: DiveSpec): SimulatedDive {
   let wanderE = unit.kind === 'boat' ? random.normal(0, unit.wanderSigmaM) : 0;
   let wanderN = unit.kind === 'boat' ? random.normal(0, unit.wanderSigmaM) : 0;
   let wanderH = unit.kind === 'boat' ? random.normal(0, unit.headingWanderSigmaDeg) : 0;
+  const oneNorth = frame.inverse(0, 1);
+  const oneEast = frame.inverse(1, 0);
+  const degreesPerMetreNorth = oneNorth.latDeg - spec.site.originLatDeg;
+  const degreesPerMetreEast = oneEast.lonDeg - spec.site.originLonDeg;
+  let antenna = { latDeg: Number.NaN, lonDeg: Number.NaN };
+  let cachedE = Number.NaN;
+  let cachedN = Number.NaN;
   let previousE = Number.NaN;
   let previousN = Number.NaN;
   let row = 0;
@@ -403,7 +410,11 @@ export function simulateDive(spec: DiveSpec): SimulatedDive {
     const antennaE = unit.eastM + wanderE + drift.eastM;
     const antennaN = unit.northM + wanderN + drift.northM;
     const trueHeadingDeg = normaliseAzimuthDeg(unit.headingDeg + wanderH);
-    const antenna = frame.inverse(antennaE, antennaN);
+    if (antennaE !== cachedE || antennaN !== cachedN) {
+      antenna = frame.inverse(antennaE, antennaN);
+      cachedE = antennaE;
+      cachedN = antennaN;
+    }
     const vehicle = frame.inverse(path.eastM[i] as number, path.northM[i] as number);
     const depthM = path.depthM[i] as number;
 
@@ -431,9 +442,13 @@ export function simulateDive(spec: DiveSpec): SimulatedDive {
     truth.vehicle.azimuthDeg[i] = observation.trueAzimuthDeg;
 
     // What the GNSS and the compass log for the surface unit.
+    // GNSS noise is centimetres to a metre, so a local degrees-per-metre scale places it exactly enough.
     const loggedAntenna =
       noise.gnssSigmaM > 0
-        ? frame.inverse(antennaE + random.normal(0, noise.gnssSigmaM), antennaN + random.normal(0, noise.gnssSigmaM))
+        ? {
+            latDeg: antenna.latDeg + random.normal(0, noise.gnssSigmaM) * degreesPerMetreNorth,
+            lonDeg: antenna.lonDeg + random.normal(0, noise.gnssSigmaM) * degreesPerMetreEast,
+          }
         : antenna;
     const compassDeg = normaliseAzimuthDeg(observation.compassHeadingDeg + random.normal(0, noise.compassSigmaDeg));
     surfaceLog.timeMs[i] = timeMs;
