@@ -62,10 +62,16 @@ describe('runResolve', () => {
     const direct = formatResolveResult(resolveTrack(read.tracks[0] as Track, setupOf('quay-fixed-position')));
     expect(reports[0]?.tracks[0]).toEqual(JSON.parse(JSON.stringify(direct)));
 
+    // The golden leaves out the audit verdicts, which the audit stage's own goldens pin.
+    const withoutAudit = `${JSON.stringify(
+      reports.map((r) => ({ ...r, tracks: r.tracks.map(({ audit: _audit, ...t }) => t) })),
+      null,
+      2,
+    )}\n`;
     const golden = join(FIXTURES, 'out-cli', 'quay-fixed-position.json');
-    if (UPDATE) writeFileSync(golden, io.out());
+    if (UPDATE) writeFileSync(golden, withoutAudit);
     expect(existsSync(golden), `missing golden ${golden}`).toBe(true);
-    expect(io.out()).toBe(readFileSync(golden, 'utf8'));
+    expect(withoutAudit).toBe(readFileSync(golden, 'utf8'));
   });
 
   it('writes the re-solved track, a per-input report and the run manifest, and refuses to overwrite', async () => {
