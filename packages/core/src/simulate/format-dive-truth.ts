@@ -34,8 +34,9 @@ function stable(value: unknown): string {
 /**
  * Serialises a dive's truth as stable JSON text (sorted keys, fixed decimals, trailing newline):
  * spec summary, true and logged setup, water, the observation conventions, injected faults, the
- * files written for it, and the true vehicle and surface tracks as columns (positions 8
- * decimals, depths and ranges 3, headings 2, times whole ms).
+ * files written for it, the true vehicle and surface tracks as columns (positions 8 decimals,
+ * depths and ranges 3, headings 2, times whole ms), and `track.vehicleLogTruthIndex`: for each
+ * row of the vehicle log, the index of the true sample it was made from.
  */
 export function formatDiveTruth(dive: SimulatedDive, files: readonly SimulatedFile[]): string {
   const { spec, truth } = dive;
@@ -83,6 +84,6 @@ export function formatDiveTruth(dive: SimulatedDive, files: readonly SimulatedFi
     `"lonDeg":${column(s.lonDeg, 8)},"timeMs":${column(s.timeMs, 0)}},` +
     `"vehicle":{"azimuthDeg":${column(v.azimuthDeg, 2)},"depthM":${column(v.depthM, 3)},"headingDeg":${column(v.headingDeg, 2)},` +
     `"latDeg":${column(v.latDeg, 8)},"lonDeg":${column(v.lonDeg, 8)},"slantRangeM":${column(v.slantRangeM, 3)},` +
-    `"timeMs":${column(v.timeMs, 0)}}}`;
+    `"timeMs":${column(v.timeMs, 0)}},"vehicleLogTruthIndex":${column(dive.vehicleLog.truthIndex, 0)}}`;
   return `${head.replace(`"${TRACK_PLACEHOLDER}"`, () => track)}\n`;
 }

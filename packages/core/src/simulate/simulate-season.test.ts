@@ -27,6 +27,8 @@ describe('simulateSeason', () => {
       const truth = JSON.parse(dive.truthFile.text);
       expect(truth.files.map((f: { name: string }) => f.name)).toEqual(dive.files.map((f) => f.name));
       expect(truth.track.vehicle.timeMs).toHaveLength(dive.dive.truth.vehicle.timeMs.length);
+      expect(truth.track.vehicleLogTruthIndex).toEqual(Array.from(dive.dive.vehicleLog.truthIndex));
+      expect(Object.keys(truth)).toEqual(Object.keys(truth).sort());
       expect(truth.conventions.join(' ')).toContain('assumed over water sound speed');
       expect(dive.truthFile.name.endsWith('.truth.json')).toBe(true);
     }
