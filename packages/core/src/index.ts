@@ -90,7 +90,7 @@ export { formatResolveResult } from './resolve/format-resolve-result.js';
 export type { MagneticDeclination } from './resolve/magnetic-declination.js';
 export { decimalYearFromTimeMs, magneticDeclination } from './resolve/magnetic-declination.js';
 export type { ResolveSetup, ResolveSetupInput, WaterSoundSpeed } from './resolve/resolve-setup.js';
-export { parseResolveSetup, resolveSetupSchema } from './resolve/resolve-setup.js';
+export { parseResolveSetup, resolveSetupJsonSchema, resolveSetupSchema } from './resolve/resolve-setup.js';
 export type {
   AppliedSetup,
   AuditOutcome,

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { InvalidArgumentError } from '../errors.js';
-import { parseResolveSetup } from './resolve-setup.js';
+import { parseResolveSetup, resolveSetupJsonSchema } from './resolve-setup.js';
 
 describe('parseResolveSetup', () => {
   it('fills every default and gives every parameter a source', () => {
@@ -61,5 +61,17 @@ describe('parseResolveSetup', () => {
         surfacePosition: { method: 'fixed', latDeg: 95, lonDeg: 0 },
       }),
     ).toThrow(/surfacePosition\.latDeg/);
+  });
+});
+
+describe('resolveSetupJsonSchema', () => {
+  it('describes the same setup: soundSpeed required, methods and defaults listed', () => {
+    const schema = resolveSetupJsonSchema() as {
+      required: string[];
+      properties: Record<string, { default?: unknown }>;
+    };
+    expect(schema.required).toEqual(['soundSpeed']);
+    expect(schema.properties.headingOffset?.default).toEqual({ valueDeg: 0, source: 'not stated' });
+    expect(JSON.stringify(schema)).toContain('"fresh-bilaniuk-wong-1993"');
   });
 });

@@ -70,7 +70,10 @@ export const resolveSetupSchema = z.strictObject({
       z.strictObject({ method: z.literal('value'), valueDeg: finite, source }),
     ])
     .default({ method: 'value', valueDeg: 0, source: 'not stated' }),
-  /** GNSS antenna to transceiver, metres in the surface unit's frame (forward, starboard, down). */
+  /**
+   * GNSS antenna to transceiver, metres in the surface unit's frame (forward, starboard, down).
+   * `downM` is recorded but does not enter the geometry: the transceiver's depth is the draft.
+   */
   leverArm: z
     .strictObject({ forwardM: finite, starboardM: finite, downM: finite.default(0), source })
     .default({ forwardM: 0, starboardM: 0, downM: 0, source: 'not stated' }),
@@ -105,6 +108,14 @@ export type ResolveSetup = z.output<typeof resolveSetupSchema>;
 export type ResolveSetupInput = z.input<typeof resolveSetupSchema>;
 /** How the true speed of sound in the water is given. */
 export type WaterSoundSpeed = NonNullable<ResolveSetup['soundSpeed']['water']>;
+
+/**
+ * The setup's JSON Schema (draft 2020-12, input side: defaults shown, optional keys optional), for
+ * API documents and editors. Generated from {@link resolveSetupSchema}, so the two never disagree.
+ */
+export function resolveSetupJsonSchema(): Record<string, unknown> {
+  return z.toJSONSchema(resolveSetupSchema, { io: 'input' }) as Record<string, unknown>;
+}
 
 /**
  * Validates a re-solve setup (plain JSON) and fills its defaults. Throws `InvalidArgumentError`
