@@ -21,12 +21,15 @@ import { createHealthRoutes } from './routes/health-routes.js';
 import { createInvitationRoutes } from './routes/invitation-routes.js';
 import { createMailboxRoutes } from './routes/mailbox-routes.js';
 import { createMemberRoutes } from './routes/member-routes.js';
+import { createProjectRoutes } from './routes/project-routes.js';
 import { authenticateApiToken } from './services/api-token-service.js';
 import type { ServiceContext } from './services/service-context.js';
 import { createKnexActivityStore } from './stores/activity-store.js';
 import { createKnexApiTokenStore } from './stores/api-token-store.js';
 import { createKnexEmailLinkStore } from './stores/email-link-store.js';
 import { createKnexHealthStore, type HealthStore } from './stores/health-store.js';
+import { createKnexLogStore } from './stores/log-store.js';
+import { createKnexProjectStore } from './stores/project-store.js';
 import { createKnexUserStore } from './stores/user-store.js';
 
 /** The name of the session cookie. */
@@ -109,6 +112,7 @@ export function buildApp(deps: AppDependencies): BuiltApp {
     ...createMemberRoutes(ctx),
     ...createInvitationRoutes(ctx, limits),
     ...createApiTokenRoutes(ctx),
+    ...createProjectRoutes(ctx, { projects: createKnexProjectStore(deps.db), logs: createKnexLogStore(deps.db) }),
     ...(deps.fakeMailbox === undefined ? [] : createMailboxRoutes(deps.fakeMailbox)),
   ];
   let openApi: unknown;

@@ -59,6 +59,7 @@ export function mountRoutes(routes: readonly RouteSpec[], deps: MountDependencie
         ? undefined
         : multer({
             storage: multer.memoryStorage(),
+            defParamCharset: 'utf8',
             limits: { fileSize: deps.uploadLimitBytes, files: route.upload.maxFiles },
           }).array(route.upload.field, route.upload.maxFiles);
 

@@ -1,0 +1,211 @@
+import { createHash } from 'node:crypto';
+import { detectFormat, parseCrsCode, resolveCrs } from '@leadline/core';
+import { AppError } from '../http/errors.js';
+import type { ActivityStore } from '../stores/activity-store.js';
+import type { LogRecord, LogStore } from '../stores/log-store.js';
+import type { ProjectFields, ProjectRecord, ProjectStore } from '../stores/project-store.js';
+
+interface Deps {
+  projects: ProjectStore;
+  logs: LogStore;
+  activity: ActivityStore;
+}
+
+/** Normalises and checks a project's time zone (IANA) and CRS (an EPSG code core can resolve); 422 otherwise. */
+function checkSettings(fields: Partial<ProjectFields>): Partial<ProjectFields> {
+  const checked = { ...fields };
+  if (fields.timeZone !== undefined) {
+    try {
+      checked.timeZone = new Intl.DateTimeFormat('en', { timeZone: fields.timeZone }).resolvedOptions().timeZone;
+    } catch {
+      throw new AppError(
+        'unprocessable',
+        `"${fields.timeZone}" is not a time zone; use an IANA name such as Europe/Oslo.`,
+      );
+    }
+  }
+  if (fields.defaultCrs !== undefined && fields.defaultCrs !== null) {
+    const code = parseCrsCode(fields.defaultCrs);
+    try {
+      if (code === undefined) throw new Error(`"${fields.defaultCrs}" is not a CRS code; expected EPSG:<number>`);
+      resolveCrs(code);
+    } catch (error) {
+      throw new AppError('unprocessable', error instanceof Error ? error.message : String(error), {
+        field: 'defaultCrs',
+      });
+    }
+    checked.defaultCrs = `EPSG:${code}`;
+  }
+  return checked;
+}
+
+/** The organisation's projects by name. */
+export function listProjects(deps: Deps, organisationId: string): Promise<ProjectRecord[]> {
+  return deps.projects.list(organisationId);
+}
+
+/** One project; 404 when it is not in this organisation. */
+export async function getProject(deps: Deps, organisationId: string, projectId: string): Promise<ProjectRecord> {
+  const project = await deps.projects.find(organisationId, projectId);
+  if (project === undefined) throw new AppError('not-found', `No project ${projectId} in this organisation.`);
+  return project;
+}
+
+/** Creates a project; 409 when the name is taken in the organisation. */
+export async function createProject(
+  deps: Deps,
+  input: { organisationId: string; actorUserId: string; fields: ProjectFields },
+): Promise<ProjectRecord> {
+  const fields = { ...input.fields, ...checkSettings(input.fields) };
+  const project = await deps.projects.create(input.organisationId, fields);
+  if (project === undefined) throw new AppError('conflict', `A project named "${fields.name}" already exists.`);
+  await deps.activity.append({
+    organisationId: input.organisationId,
+    actorUserId: input.actorUserId,
+    action: 'project-created',
+    subjectType: 'project',
+    subjectId: project.id,
+    details: { name: project.name },
+  });
+  return project;
+}
+
+/** Changes a project's settings. */
+export async function updateProject(
+  deps: Deps,
+  input: { organisationId: string; projectId: string; actorUserId: string; fields: Partial<ProjectFields> },
+): Promise<ProjectRecord> {
+  const result = await deps.projects.update(input.organisationId, input.projectId, checkSettings(input.fields));
+  if (result === 'missing') throw new AppError('not-found', `No project ${input.projectId} in this organisation.`);
+  if (result === 'duplicate-name')
+    throw new AppError('conflict', `A project named "${input.fields.name}" already exists.`);
+  await deps.activity.append({
+    organisationId: input.organisationId,
+    actorUserId: input.actorUserId,
+    action: 'project-updated',
+    subjectType: 'project',
+    subjectId: input.projectId,
+    details: { fields: Object.keys(input.fields).sort() },
+  });
+  return getProject(deps, input.organisationId, input.projectId);
+}
+
+/** Deletes a project with all its logs. */
+export async function deleteProject(
+  deps: Deps,
+  input: { organisationId: string; projectId: string; actorUserId: string },
+): Promise<void> {
+  const project = await getProject(deps, input.organisationId, input.projectId);
+  await deps.projects.delete(input.organisationId, input.projectId);
+  await deps.activity.append({
+    organisationId: input.organisationId,
+    actorUserId: input.actorUserId,
+    action: 'project-deleted',
+    subjectType: 'project',
+    subjectId: project.id,
+    details: { name: project.name, logCount: project.logCount },
+  });
+}
+
+/** The outcome of one uploaded file. */
+export type UploadResult =
+  | { fileName: string; status: 'created' | 'existing'; log: LogRecord }
+  | { fileName: string; status: 'rejected'; error: { code: string; message: string } };
+
+/**
+ * Archives uploaded files verbatim with their SHA-256. The same bytes in the same project return the
+ * existing log; a file that is empty or not a log format Leadline reads is rejected with a reason and
+ * not stored.
+ */
+export async function uploadLogs(
+  deps: Deps,
+  input: {
+    organisationId: string;
+    projectId: string;
+    actorUserId: string;
+    files: Array<{ fileName: string; content: Uint8Array }>;
+  },
+): Promise<UploadResult[]> {
+  await getProject(deps, input.organisationId, input.projectId);
+  const results: UploadResult[] = [];
+  for (const file of input.files) {
+    if (file.content.byteLength === 0) {
+      results.push({
+        fileName: file.fileName,
+        status: 'rejected',
+        error: { code: 'empty-file', message: 'The file is empty.' },
+      });
+      continue;
+    }
+    const format = detectFormat({ fileName: file.fileName, content: file.content });
+    if (format === undefined) {
+      results.push({
+        fileName: file.fileName,
+        status: 'rejected',
+        error: {
+          code: 'unknown-format',
+          message: 'Not a log Leadline reads: expected GPX, KML, GeoJSON, NMEA 0183 or delimited text (CSV).',
+        },
+      });
+      continue;
+    }
+    const sha256 = createHash('sha256').update(file.content).digest('hex');
+    const { log, created } = await deps.logs.insertOrFind({
+      projectId: input.projectId,
+      originalFileName: file.fileName,
+      content: file.content,
+      sha256,
+      detectedFormat: format,
+      uploadedBy: input.actorUserId,
+    });
+    if (created)
+      await deps.activity.append({
+        organisationId: input.organisationId,
+        actorUserId: input.actorUserId,
+        action: 'log-uploaded',
+        subjectType: 'log',
+        subjectId: log.id,
+        details: { projectId: input.projectId, fileName: file.fileName, sha256, sizeBytes: log.sizeBytes },
+      });
+    results.push({ fileName: file.fileName, status: created ? 'created' : 'existing', log });
+  }
+  return results;
+}
+
+/** A project's logs, newest first. */
+export async function listLogs(deps: Deps, organisationId: string, projectId: string): Promise<LogRecord[]> {
+  await getProject(deps, organisationId, projectId);
+  return deps.logs.list(projectId);
+}
+
+/** One log's record and its original bytes. */
+export async function getLogOriginal(
+  deps: Deps,
+  input: { organisationId: string; projectId: string; logId: string },
+): Promise<{ log: LogRecord; content: Buffer }> {
+  await getProject(deps, input.organisationId, input.projectId);
+  const log = await deps.logs.find(input.projectId, input.logId);
+  const content = await deps.logs.content(input.projectId, input.logId);
+  if (log === undefined || content === undefined)
+    throw new AppError('not-found', `No log ${input.logId} in this project.`);
+  return { log, content };
+}
+
+/** Deletes a log and what was derived from it. */
+export async function deleteLog(
+  deps: Deps,
+  input: { organisationId: string; projectId: string; logId: string; actorUserId: string },
+): Promise<void> {
+  await getProject(deps, input.organisationId, input.projectId);
+  const log = await deps.logs.find(input.projectId, input.logId);
+  if (log === undefined || !(await deps.logs.delete(input.projectId, input.logId)))
+    throw new AppError('not-found', `No log ${input.logId} in this project.`);
+  await deps.activity.append({
+    organisationId: input.organisationId,
+    actorUserId: input.actorUserId,
+    action: 'log-deleted',
+    subjectType: 'log',
+    subjectId: log.id,
+    details: { projectId: input.projectId, fileName: log.originalFileName, sha256: log.sha256 },
+  });
+}
