@@ -100,7 +100,7 @@ export const registerSimulate: RegisterCommand = (program, context) => {
     .option('--interval <seconds>', 'seconds between fixes', parseSeconds)
     .option(
       '--jobs <n>',
-      'dives simulated at once (default: the number of cores)',
+      'dives simulated at once on worker threads (one per core by default)',
       parsePositiveInteger,
       availableParallelism(),
     )
