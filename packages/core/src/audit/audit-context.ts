@@ -1,13 +1,16 @@
-import { createLocalFrame, type LocalFrame } from '../geodesy/create-local-frame.js';
 import type { Track } from '../model/track.js';
 import type { AuditProfile } from './audit-profile.js';
 import type { AuditSetup } from './audit-setup.js';
+import { createTangentPlane, type TangentPlane } from './create-tangent-plane.js';
 import type { CheckName } from './finding.js';
-import { neighbourMedian, windowMean } from './robust-window.js';
+import { neighbourMedian } from './robust-window.js';
 
 /** Half-width, in fixes, of the neighbour windows the robust checks use (8 neighbours). */
 export const NEIGHBOUR_HALF_WIDTH = 4;
-/** Half-width, in fixes, over which the local spread is averaged. */
+/**
+ * Half-width, in fixes, of the window whose median residual is the local spread: 32 neighbours
+ * give a scale steady enough to multiply by the spread factor (8 alone wander by tens of per cent).
+ */
 export const SPREAD_HALF_WIDTH = 16;
 
 /** The bit each fix-flagging check sets in `AuditContext.flags`. */
@@ -28,7 +31,7 @@ export interface AuditContext {
   setup: AuditSetup;
   n: number;
   /** The local frame positions are projected into (origin: the first plausible fix); undefined when none is plausible. */
-  frame: LocalFrame | undefined;
+  frame: TangentPlane | undefined;
   /** 1 where the fix has a plausible WGS 84 position (finite, in range, not 0,0). */
   plausible: Uint8Array;
   eastM: Float64Array;
@@ -38,8 +41,6 @@ export interface AuditContext {
   medianNorthM: Float64Array;
   /** Distance of each fix from its neighbours' median, metres. */
   residualM: Float64Array;
-  /** The neighbours' median residual averaged over ±16 fixes: the local spread of the track, metres. */
-  spreadM: Float64Array;
   /** The surface unit's position in the same frame, `NaN` where the log has none. */
   surfaceEastM: Float64Array;
   surfaceNorthM: Float64Array;
@@ -47,6 +48,8 @@ export interface AuditContext {
   hasSurface: boolean;
   /** Per-fix bit set of the checks that flagged the fix (see `FLAG_BITS`). */
   flags: Uint16Array;
+  /** Values several checks need, computed by the first that asks. */
+  cache: { slantRangesM?: Float64Array };
 }
 
 /** Whether a WGS 84 position could be real: finite, in range and not the 0,0 placeholder many loggers write. */
@@ -69,10 +72,10 @@ export function createAuditContext(track: Track, profile: AuditProfile, setup: A
   }
   const eastM = new Float64Array(n).fill(Number.NaN);
   const northM = new Float64Array(n).fill(Number.NaN);
-  let frame: LocalFrame | undefined;
+  let frame: TangentPlane | undefined;
   if (origin >= 0) {
-    frame = createLocalFrame(latDeg[origin] as number, lonDeg[origin] as number);
-    frame.forwardColumns(latDeg, lonDeg, { eastM, northM });
+    frame = createTangentPlane(latDeg[origin] as number, lonDeg[origin] as number);
+    frame.forwardColumns(latDeg, lonDeg, eastM, northM);
     for (let i = 0; i < n; i++) {
       if (plausible[i] === 0) {
         eastM[i] = Number.NaN;
@@ -85,14 +88,13 @@ export function createAuditContext(track: Track, profile: AuditProfile, setup: A
   const { surfaceLatDeg, surfaceLonDeg } = track.columns;
   let hasSurface = false;
   if (frame !== undefined) {
+    frame.forwardColumns(surfaceLatDeg, surfaceLonDeg, surfaceEastM, surfaceNorthM);
     for (let i = 0; i < n; i++) {
-      const lat = surfaceLatDeg[i] as number;
-      const lon = surfaceLonDeg[i] as number;
-      if (!isPlausiblePosition(lat, lon)) continue;
-      const p = frame.forward(lat, lon);
-      surfaceEastM[i] = p.eastM;
-      surfaceNorthM[i] = p.northM;
-      hasSurface = true;
+      if (isPlausiblePosition(surfaceLatDeg[i] as number, surfaceLonDeg[i] as number)) hasSurface = true;
+      else {
+        surfaceEastM[i] = Number.NaN;
+        surfaceNorthM[i] = Number.NaN;
+      }
     }
   }
   const medianEastM = neighbourMedian(eastM, NEIGHBOUR_HALF_WIDTH, new Float64Array(n));
@@ -103,13 +105,6 @@ export function createAuditContext(track: Track, profile: AuditProfile, setup: A
     const dn = (northM[i] as number) - (medianNorthM[i] as number);
     residualM[i] = Math.sqrt(de * de + dn * dn);
   }
-  // the neighbours' median residual, averaged over ±16 fixes so the scale is steady enough to
-  // multiply by the spread factor (8 samples alone wander by tens of per cent)
-  const spreadM = windowMean(
-    neighbourMedian(residualM, NEIGHBOUR_HALF_WIDTH, new Float64Array(n)),
-    SPREAD_HALF_WIDTH,
-    new Float64Array(n),
-  );
   return {
     track,
     profile,
@@ -122,10 +117,10 @@ export function createAuditContext(track: Track, profile: AuditProfile, setup: A
     medianEastM,
     medianNorthM,
     residualM,
-    spreadM,
     surfaceEastM,
     surfaceNorthM,
     hasSurface,
     flags: new Uint16Array(n),
+    cache: {},
   };
 }

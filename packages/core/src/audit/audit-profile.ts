@@ -84,9 +84,11 @@ export type PresetProfileName = 'inspection-rov' | 'work-rov' | 'diver' | 'towed
 //   normally delivers a fix every 1-2 s, so 20 s without one needs a look and 2 min means the
 //   vehicle track between them is guesswork.
 // - fix rate: fewer than one fix per 5 s over a minute (0.2 Hz) is a weak acoustic link.
-// - position jumps: 4x the local spread keeps Gaussian noise false alarms near 1 in 10^4 (the
-//   Hampel identifier's usual 3-4 sigma); the floor stops sub-metre wobble of pre-filtered logs
-//   counting as jumps.
+// - position jumps: 5x the local spread (the median residual, about 1.18 Rayleigh sigmas) puts the
+//   limit near 6 sigmas, so Gaussian noise alone would cross it about once in 10^7 fixes; the
+//   margin absorbs the wobble of a 32-sample scale estimate (the Hampel identifier's usual 3-4
+//   sigma flags too much at a million fixes). The floor stops sub-metre wobble of pre-filtered
+//   logs counting as jumps.
 // - surface drift: standalone/SBAS GNSS wanders 2-3 m (95 %), so 5 m from the median is real
 //   movement and 20 m is a vessel off station.
 // - draft: a transceiver about 1-1.5 m below the surface, clear of hull and objects (common
@@ -101,7 +103,7 @@ const COMMON = {
   minFixRateHz: 0.2,
   fixRateWindowS: 60,
   speedBaselineS: 10,
-  jumpSpreadFactor: 4,
+  jumpSpreadFactor: 5,
   surfaceDriftWarnM: 5,
   surfaceDriftFailM: 20,
   draftMinM: 1,

@@ -3,9 +3,11 @@ import type { AuditContext } from './audit-context.js';
 /**
  * Slant range from the transceiver to the vehicle for each fix, metres: the logged slant range
  * when there is one, else the 3-D distance from the logged surface unit position (at the
- * transceiver draft, 0 when unknown) to the vehicle fix; `NaN` when neither is known.
+ * transceiver draft, 0 when unknown) to the vehicle fix; `NaN` when neither is known. Computed
+ * once per audit (kept in `context.cache`).
  */
 export function estimateSlantRanges(context: AuditContext): Float64Array {
+  if (context.cache.slantRangesM !== undefined) return context.cache.slantRangesM;
   const { n, eastM, northM, surfaceEastM, surfaceNorthM } = context;
   const { slantRangeM, depthM } = context.track.columns;
   const draftM = context.setup.transceiverDraftM ?? 0;
@@ -22,6 +24,7 @@ export function estimateSlantRanges(context: AuditContext): Float64Array {
     const dz = Number.isNaN(depth) ? 0 : depth - draftM;
     out[i] = Math.sqrt(de * de + dn * dn + dz * dz);
   }
+  context.cache.slantRangesM = out;
   return out;
 }
 

@@ -1,7 +1,7 @@
 import type { AuditContext } from './audit-context.js';
 import type { UncertaintyModel } from './audit-profile.js';
 import { estimateHorizontalOffsets, estimateSlantRanges } from './estimate-slant-ranges.js';
-import { S44_ORDERS, type S44Order } from './s44-orders.js';
+import { S44_ORDERS, type S44Order, type S44OrderLimits } from './s44-orders.js';
 
 /** Per-fix 95 % uncertainties, metres; `NaN` where they cannot be estimated. */
 export interface FixUncertainty {
@@ -66,22 +66,29 @@ export function shareMeetingS44Orders(
   flags?: Uint16Array,
 ): S44Share[] {
   const n = depthM.length;
-  return S44_ORDERS.map(({ order, thuConstantM, thuDepthFraction, tvuAM, tvuB }) => {
-    let judged = 0;
-    let meeting = 0;
-    for (let i = 0; i < n; i++) {
-      if (flags !== undefined && flags[i] !== 0) continue;
-      const thu = uncertainty.horizontal95M[i] as number;
-      if (Number.isNaN(thu)) continue;
-      const d = depthM[i] as number;
-      const tvu = uncertainty.vertical95M[i] as number;
-      judged++;
-      const depth = Number.isNaN(d) ? 0 : d;
-      // the same formulas as maximumThuM / maximumTvuM, inlined for long logs
-      const thuMax = thuConstantM + thuDepthFraction * Math.max(depth, 0);
-      const bd = tvuB * Math.max(depth, 0);
-      if (thu <= thuMax && (Number.isNaN(d) || tvu * tvu <= tvuAM * tvuAM + bd * bd)) meeting++;
+  const orders = S44_ORDERS.length;
+  const meeting = new Array<number>(orders).fill(0);
+  let judged = 0;
+  for (let i = 0; i < n; i++) {
+    if (flags !== undefined && flags[i] !== 0) continue;
+    const thu = uncertainty.horizontal95M[i] as number;
+    if (Number.isNaN(thu)) continue;
+    judged++;
+    const d = depthM[i] as number;
+    const depth = Math.max(d, 0); // NaN and negative depths judge at the surface
+    const tvu = uncertainty.vertical95M[i] as number;
+    for (let k = 0; k < orders; k++) {
+      const o = S44_ORDERS[k] as S44OrderLimits;
+      // the formulas of maximumThuM / maximumTvuM, inlined for long logs
+      if (thu > o.thuConstantM + o.thuDepthFraction * depth) continue;
+      const bd = o.tvuB * depth;
+      if (Number.isNaN(d) || tvu * tvu <= o.tvuAM * o.tvuAM + bd * bd) meeting[k] = (meeting[k] as number) + 1;
     }
-    return { order, judged, meeting, share: judged === 0 ? Number.NaN : meeting / judged };
-  });
+  }
+  return S44_ORDERS.map(({ order }, k) => ({
+    order,
+    judged,
+    meeting: meeting[k] as number,
+    share: judged === 0 ? Number.NaN : (meeting[k] as number) / judged,
+  }));
 }

@@ -13,12 +13,28 @@ export function neighbourMedian(values: Float64Array, halfWidth: number, out: Fl
   const n = values.length;
   const scratch = new Float64Array(2 * halfWidth);
   for (let i = 0; i < n; i++) {
-    let count = 0;
+    if (halfWidth === 4 && i >= 4 && i + 4 < n) {
+      const m = medianOfEight(
+        values[i - 4] as number,
+        values[i - 3] as number,
+        values[i - 2] as number,
+        values[i - 1] as number,
+        values[i + 1] as number,
+        values[i + 2] as number,
+        values[i + 3] as number,
+        values[i + 4] as number,
+      );
+      if (!Number.isNaN(m)) {
+        out[i] = m;
+        continue;
+      }
+    }
     let h = halfWidth;
     if (i < h) h = i;
     if (n - 1 - i < h) h = n - 1 - i;
     const from = i - h;
     const to = i + h;
+    let count = 0;
     for (let j = from; j <= to; j++) {
       if (j === i) continue;
       const v = values[j] as number;
@@ -71,4 +87,77 @@ export function windowMean(values: Float64Array, halfWidth: number, out: Float64
     out[i] = count === 0 ? Number.NaN : sum / count;
   }
   return out;
+}
+
+/**
+ * Median of eight numbers (mean of the 4th and 5th smallest); `NaN` when any is `NaN`. Sorts each
+ * half with the first two layers of Batcher's odd-even merge network (Knuth TAOCP vol. 3 §5.3.4,
+ * from memory), then takes the middle pair of the merged halves as max/min over the crossed pairs
+ * (for sorted a0..a3 and b0..b3 the 4th smallest is max(min(a0,b3), min(a1,b2), min(a2,b1),
+ * min(a3,b0)); checked against sorting in the tests). Branch-free: min and max compile to single
+ * instructions, which matters at a million fixes.
+ */
+export function medianOfEight(
+  a0: number,
+  a1: number,
+  a2: number,
+  a3: number,
+  a4: number,
+  a5: number,
+  a6: number,
+  a7: number,
+): number {
+  if (Number.isNaN(a0 + a1 + a2 + a3 + a4 + a5 + a6 + a7)) return Number.NaN; // one test for all eight
+  let t = Math.min(a0, a1);
+  a1 = Math.max(a0, a1);
+  a0 = t;
+  t = Math.min(a2, a3);
+  a3 = Math.max(a2, a3);
+  a2 = t;
+  t = Math.min(a4, a5);
+  a5 = Math.max(a4, a5);
+  a4 = t;
+  t = Math.min(a6, a7);
+  a7 = Math.max(a6, a7);
+  a6 = t;
+  t = Math.min(a0, a2);
+  a2 = Math.max(a0, a2);
+  a0 = t;
+  t = Math.min(a1, a3);
+  a3 = Math.max(a1, a3);
+  a1 = t;
+  t = Math.min(a4, a6);
+  a6 = Math.max(a4, a6);
+  a4 = t;
+  t = Math.min(a5, a7);
+  a7 = Math.max(a5, a7);
+  a5 = t;
+  t = Math.min(a1, a2);
+  a2 = Math.max(a1, a2);
+  a1 = t;
+  t = Math.min(a5, a6);
+  a6 = Math.max(a5, a6);
+  a5 = t;
+  const lower = Math.max(Math.min(a0, a7), Math.min(a1, a6), Math.min(a2, a5), Math.min(a3, a4));
+  const upper = Math.min(Math.max(a0, a7), Math.max(a1, a6), Math.max(a2, a5), Math.max(a3, a4));
+  return (lower + upper) / 2;
+}
+
+/**
+ * Median of the non-`NaN` values among the `halfWidth` fixes either side of fix i (fix i left
+ * out); `NaN` when none. Sorts a copy, so meant for the few fixes that need it, not for every fix.
+ */
+export function localMedian(values: Float64Array, i: number, halfWidth: number): number {
+  const from = Math.max(0, i - halfWidth);
+  const to = Math.min(values.length - 1, i + halfWidth);
+  const picked: number[] = [];
+  for (let j = from; j <= to; j++) {
+    if (j === i) continue;
+    const v = values[j] as number;
+    if (!Number.isNaN(v)) picked.push(v);
+  }
+  if (picked.length === 0) return Number.NaN;
+  picked.sort((a, b) => a - b);
+  const m = picked.length >> 1;
+  return picked.length % 2 === 1 ? (picked[m] as number) : ((picked[m - 1] as number) + (picked[m] as number)) / 2;
 }

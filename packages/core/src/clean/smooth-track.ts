@@ -1,5 +1,5 @@
 import { isPlausiblePosition } from '../audit/audit-context.js';
-import { createLocalFrame } from '../geodesy/create-local-frame.js';
+import { createTangentPlane } from '../audit/create-tangent-plane.js';
 import type { FixColumns, Track } from '../model/track.js';
 
 /** Settings of `smoothTrack`. */
@@ -34,7 +34,7 @@ const RADIUS95_PER_SIGMA = 2.4477;
 
 /**
  * Smooths a track's horizontal positions with a constant-velocity Kalman filter (east and north in
- * a local metric frame, white-noise acceleration) followed by a Rauch–Tung–Striebel smoother.
+ * a local metric frame, `createTangentPlane`, white-noise acceleration) followed by a Rauch–Tung–Striebel smoother.
  * Each measurement's noise comes from its 95 % horizontal uncertainty. Innovation gating rejects
  * outliers (they do not pull the estimate; their positions are replaced by the smoothed track),
  * and a run of `maxConsecutiveRejections` restarts the filter. Fixes without a plausible position,
@@ -57,8 +57,11 @@ export function smoothTrack(track: Track, options: SmoothOptions): SmoothResult 
     if (isPlausiblePosition(latDeg[i] as number, lonDeg[i] as number)) origin = i;
   const columns = { ...track.columns } as FixColumns;
   if (origin < 0) return { track: { ...track, columns }, gated, gatedCount: 0 };
-  const frame = createLocalFrame(latDeg[origin] as number, lonDeg[origin] as number);
-  const { eastM: zE, northM: zN } = frame.forwardColumns(latDeg, lonDeg);
+  const frame = createTangentPlane(latDeg[origin] as number, lonDeg[origin] as number);
+  const zE = new Float64Array(n);
+  const zN = new Float64Array(n);
+  frame.forwardColumns(latDeg, lonDeg, zE, zN);
+  const point = new Float64Array(2);
   const usable = new Uint8Array(n);
   for (let i = 0; i < n; i++)
     usable[i] = isPlausiblePosition(latDeg[i] as number, lonDeg[i] as number) && !flags?.[i] ? 1 : 0;
@@ -213,9 +216,9 @@ export function smoothTrack(track: Track, options: SmoothOptions): SmoothResult 
       outLat[k] = latDeg[k] as number;
       outLon[k] = lonDeg[k] as number;
     } else {
-      const p = frame.inverse(sE, sN);
-      outLat[k] = p.latDeg;
-      outLon[k] = p.lonDeg;
+      frame.inverseInto(sE, sN, point);
+      outLat[k] = point[0] as number;
+      outLon[k] = point[1] as number;
     }
   }
   columns.latDeg = outLat;

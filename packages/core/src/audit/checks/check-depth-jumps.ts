@@ -1,13 +1,13 @@
 import type { AuditContext } from '../audit-context.js';
-import { NEIGHBOUR_HALF_WIDTH } from '../audit-context.js';
+import { NEIGHBOUR_HALF_WIDTH, SPREAD_HALF_WIDTH } from '../audit-context.js';
 import type { Finding } from '../finding.js';
 import { findingsFromRuns, fixCount, formatValue } from '../findings-from-runs.js';
-import { neighbourMedian } from '../robust-window.js';
+import { localMedian, neighbourMedian } from '../robust-window.js';
 
 /**
  * Depth jumps: a depth farther from its 8 neighbours' median depth than both
  * `profile.depthJumpFloorM` plus what `profile.maxVerticalSpeedMps` allows over the time to the
- * nearer neighbour, and `profile.jumpSpreadFactor` times the local spread. Flags the fix; runs are
+ * nearer neighbour, and `profile.jumpSpreadFactor` times the local spread (median residual of the 32 neighbours). Flags the fix; runs are
  * `warn` findings (`fail` past `profile.flaggedShareFail`).
  */
 export function checkDepthJumps(context: AuditContext): Finding[] {
@@ -16,7 +16,6 @@ export function checkDepthJumps(context: AuditContext): Finding[] {
   const median = neighbourMedian(depthM, NEIGHBOUR_HALF_WIDTH, new Float64Array(n));
   const residual = new Float64Array(n);
   for (let i = 0; i < n; i++) residual[i] = Math.abs((depthM[i] as number) - (median[i] as number));
-  const spread = neighbourMedian(residual, NEIGHBOUR_HALF_WIDTH, new Float64Array(n));
   const measured = new Float64Array(n).fill(Number.NaN);
   for (let i = 0; i < n; i++) {
     const r = residual[i] as number;
@@ -25,7 +24,7 @@ export function checkDepthJumps(context: AuditContext): Finding[] {
     const after = i < n - 1 ? (timeMs[i + 1] as number) - (timeMs[i] as number) : Number.POSITIVE_INFINITY;
     const dtS = Math.max(0, Math.min(before, after)) / 1000;
     const allowed = profile.depthJumpFloorM + (Number.isFinite(dtS) ? profile.maxVerticalSpeedMps * dtS : 0);
-    const s = spread[i] as number;
+    const s = localMedian(residual, i, SPREAD_HALF_WIDTH);
     const limit = Number.isNaN(s) ? allowed : Math.max(allowed, profile.jumpSpreadFactor * s);
     if (r > limit) measured[i] = r;
   }

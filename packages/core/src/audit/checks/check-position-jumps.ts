@@ -1,23 +1,25 @@
-import type { AuditContext } from '../audit-context.js';
+import { type AuditContext, SPREAD_HALF_WIDTH } from '../audit-context.js';
 import type { Finding } from '../finding.js';
 import { findingsFromRuns, fixCount, formatValue } from '../findings-from-runs.js';
+import { localMedian } from '../robust-window.js';
 
 /**
  * Position jumps judged against neighbours: a fix is a jump when its distance from the median
  * position of its 8 neighbours exceeds both `profile.jumpFloorM` and `profile.jumpSpreadFactor`
- * times the local spread (the median of the neighbours' own distances), so the limit follows the
+ * times the local spread (the median distance of the 32 neighbours around it), so the limit follows the
  * local noise (longer range, noisier fixes) instead of one threshold for the whole log. Flags the
  * fix; runs are `warn` findings (`fail` past `profile.flaggedShareFail`), measured the largest
  * distance and limit the floor.
  */
 export function checkPositionJumps(context: AuditContext): Finding[] {
-  const { n, profile, residualM, spreadM } = context;
+  const { n, profile, residualM } = context;
   const measured = new Float64Array(n).fill(Number.NaN);
   let worstLimit = profile.jumpFloorM;
   for (let i = 0; i < n; i++) {
     const r = residualM[i] as number;
     if (!(r > profile.jumpFloorM)) continue;
-    const spread = spreadM[i] as number;
+    // the local spread, only for the few fixes past the floor (a median of 32 per candidate)
+    const spread = localMedian(residualM, i, SPREAD_HALF_WIDTH);
     const limit = Number.isNaN(spread)
       ? profile.jumpFloorM
       : Math.max(profile.jumpFloorM, profile.jumpSpreadFactor * spread);
