@@ -11,7 +11,12 @@ export default defineConfig({
       { test: { name: 'server', root: './packages/server', include: ['src/**/*.test.ts'], testTimeout: 30_000 } },
       {
         plugins: [react()],
-        test: { name: 'web', root: './packages/web', environment: 'jsdom', include: ['src/**/*.test.tsx'] },
+        test: {
+          name: 'web',
+          root: './packages/web',
+          environment: 'jsdom',
+          include: ['src/**/*.test.ts', 'src/**/*.test.tsx'],
+        },
       },
       {
         test: {

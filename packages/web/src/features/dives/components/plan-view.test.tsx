@@ -1,0 +1,66 @@
+import { cleanup, fireEvent, render, screen } from '@testing-library/react';
+import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import { createLocalGrid } from '../lib/grid-system';
+import { preparePlotData } from '../lib/prepare-plot-data';
+import { createSampleDive } from '../preview/create-sample-dive';
+import { PlanView } from './plan-view';
+
+beforeEach(() => {
+  vi.spyOn(HTMLCanvasElement.prototype, 'getContext').mockReturnValue(null);
+});
+
+function renderPlan() {
+  const data = preparePlotData(createSampleDive({ fixCount: 300, seed: 1 }));
+  render(
+    <PlanView
+      data={data}
+      colourMode="depth"
+      grid={createLocalGrid()}
+      highlight={undefined}
+      cursorIndex={0}
+      description="plan"
+    />,
+  );
+  return screen.getByTestId('plan-canvas');
+}
+
+const scaleOf = (canvas: HTMLElement) => Number(canvas.getAttribute('data-metres-per-px'));
+
+afterEach(cleanup);
+
+describe('PlanView', () => {
+  it('zooms with the buttons and fits the dive again', () => {
+    const canvas = renderPlan();
+    const fitted = scaleOf(canvas);
+    fireEvent.click(screen.getByRole('button', { name: 'Zoom in' }));
+    expect(scaleOf(canvas)).toBeCloseTo(fitted / 1.5, 9);
+    fireEvent.click(screen.getByRole('button', { name: 'Zoom out' }));
+    fireEvent.click(screen.getByRole('button', { name: 'Zoom out' }));
+    expect(scaleOf(canvas)).toBeCloseTo(fitted * 1.5, 9);
+    fireEvent.click(screen.getByRole('button', { name: 'Fit to dive' }));
+    expect(scaleOf(canvas)).toBeCloseTo(fitted, 9);
+  });
+
+  it('is focusable and takes +, −, arrows and 0 from the keyboard', () => {
+    const canvas = renderPlan();
+    const plot = screen.getByRole('application', { name: 'Plan view plot' });
+    expect(plot.tabIndex).toBe(0);
+    expect(plot.getAttribute('aria-describedby')).toBeTruthy();
+    const fitted = scaleOf(canvas);
+    fireEvent.keyDown(plot, { key: '+' });
+    expect(scaleOf(canvas)).toBeLessThan(fitted);
+    fireEvent.keyDown(plot, { key: 'ArrowLeft' });
+    fireEvent.keyDown(plot, { key: '0' });
+    expect(scaleOf(canvas)).toBeCloseTo(fitted, 9);
+    fireEvent.keyDown(plot, { key: '-' });
+    expect(scaleOf(canvas)).toBeGreaterThan(fitted);
+  });
+
+  it('shows a scale bar whose label follows the zoom', () => {
+    const canvas = renderPlan();
+    const before = screen.getByTestId('scale-bar').textContent;
+    for (let i = 0; i < 4; i++) fireEvent.click(screen.getByRole('button', { name: 'Zoom in' }));
+    expect(scaleOf(canvas)).toBeGreaterThan(0);
+    expect(screen.getByTestId('scale-bar').textContent).not.toBe(before);
+  });
+});
