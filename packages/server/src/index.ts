@@ -1,9 +1,15 @@
-export type { AppDependencies } from './app.js';
-export { createApp } from './app.js';
+export type { AppDependencies, BuiltApp } from './app.js';
+export { buildApp, createApp, SESSION_COOKIE } from './app.js';
 export type { ServerConfig } from './config.js';
 export { ConfigError, parseConfig } from './config.js';
 export { createDatabase } from './db.js';
 export { DEMO_ORGANISATION, DEMO_PASSWORD, DEMO_USERS, loadDemoData } from './demo/load-demo-data.js';
+export type { RouteSpec } from './http/route-table.js';
+export { createPgSessionStore } from './http/session-store.js';
+export type { FakeSmtpServer, ReceivedMail } from './mail/fake-smtp-server.js';
+export { startFakeSmtpServer } from './mail/fake-smtp-server.js';
+export type { Mailer } from './mail/mailer.js';
+export { createSmtpMailer } from './mail/mailer.js';
 export type { HealthReport } from './services/health-service.js';
 export type { HealthStore } from './stores/health-store.js';
 export { createKnexHealthStore } from './stores/health-store.js';
