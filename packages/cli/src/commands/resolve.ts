@@ -69,7 +69,16 @@ parameter and its source: soundSpeed (loggedMps and the water's speed: value, ma
 unesco-1983, fresh-marczak-1997, fresh-bilaniuk-wong-1993 or a profile), bearingReference,
 headingOffset, declination (wmm or a value), leverArm, transceiverDraft, surfacePosition (gnss or a
 fixed surveyed position) and loggedWith. With --out each input gets <name>.resolved.<format> and
-<name>.resolve.json (setup, values applied, how far each fix moved, audit verdicts, rejections).`;
+<name>.resolve.json (setup, values applied, how far each fix moved, audit verdicts, rejections).
+
+--json prints an array with one object per input: file, ok, error (when not read), readRejections
+(line, reason, message), outputs (path, bytes, sha256) and tracks, one per vehicle track, each with
+track, setup (validated, defaults filled), applied (bearingReference, declinationDeg,
+declinationModel, waterSoundSpeedMinMps/MaxMps), fixCount, resolvedCount, rejectedCount, moved
+(comparedCount, medianM, p95M, maxM, meanM: metres from the logged positions), audit (profile,
+logged and resolved: verdict, findingCount, flaggedCount) and rejections (line, time, reason,
+message). Fixes whose vertical separation exceeds the slant range are rejected, never clamped;
+rejected fixes alone do not change the exit code.`;
 
 /** Registers `leadline resolve`. */
 export const registerResolve: RegisterCommand = (program, context) => {
