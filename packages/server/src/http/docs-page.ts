@@ -24,6 +24,8 @@ const INIT = `window.ui = SwaggerUIBundle({
   dom_id: '#docs',
   deepLinking: true,
   withCredentials: true,
+  // No outside validator badge: the page must not call any other host.
+  validatorUrl: null,
 });
 `;
 

@@ -215,3 +215,59 @@ describe('authorisation matrix over the route table', () => {
     expect(checked).toBe(testApp.routes.length * PRINCIPALS.length);
   }, 120_000);
 });
+
+describe('bad input over the route table', () => {
+  let database: Awaited<ReturnType<typeof createTestDatabase>>;
+  let testApp: TestApp;
+  let organisationId: string;
+
+  beforeAll(async () => {
+    database = await createTestDatabase();
+    testApp = await createTestApp(database, {
+      rateLimits: { signIn: { windowMs: 60_000, limit: 10_000 }, reset: { windowMs: 60_000, limit: 10_000 } },
+    });
+    ({ organisationId } = await seedOrganisation(database.db, 'Hollowtide Subsea', [
+      { email: 'maren@hollowtide.example', role: 'admin' },
+    ]));
+  });
+  afterAll(async () => {
+    await testApp.close();
+    await database.drop();
+  });
+
+  it('never answers 500 to malformed ids, queries or bodies, and always with the one error body', async () => {
+    // Even entries keep the real organisation so the request reaches validation; odd ones break it too.
+    const badIds = ["1' or '1'='1", 'x'.repeat(300), '%00'];
+    const badBodies: Array<{ type: string; raw: string }> = [
+      { type: 'application/json', raw: '[]' },
+      { type: 'application/json', raw: '"text"' },
+      { type: 'application/json', raw: '{"name": {"nested": [1, 2, {"deep": null}]}, "email": 42, "role": "owner"}' },
+      { type: 'application/json', raw: '{"unterminated": ' },
+      { type: 'text/plain', raw: 'plain words' },
+      { type: 'multipart/form-data; boundary=nothing', raw: '--broken' },
+    ];
+    const failures: string[] = [];
+    let admin = await signedInAgent(testApp, 'maren@hollowtide.example');
+    let signedOut = false;
+    for (const route of testApp.routes) {
+      for (const [i, badId] of badIds.entries()) {
+        const path = `/api/v1${route.path.replace(/:(\w+)/g, (_m, name: string) =>
+          name === 'organisationId' && i % 2 === 0 ? organisationId : badId,
+        )}?limit=abc&before=x&to[]=1`;
+        for (const body of route.method === 'get' ? [undefined] : badBodies) {
+          if (signedOut) admin = await signedInAgent(testApp, 'maren@hollowtide.example');
+          signedOut = false;
+          let call = admin[route.method](path).set('Sec-Fetch-Site', 'same-origin');
+          if (body !== undefined) call = call.set('Content-Type', body.type).send(body.raw);
+          const response = await call;
+          if (route.method !== 'get' && response.status < 300) signedOut = true;
+          const label = `${route.method.toUpperCase()} ${path.slice(0, 80)} ${body?.raw ?? ''} -> ${response.status}`;
+          if (response.status >= 500) failures.push(label);
+          else if (response.status >= 400 && typeof response.body?.error?.message !== 'string')
+            failures.push(`${label} without the one error body`);
+        }
+      }
+    }
+    expect(failures).toEqual([]);
+  }, 300_000);
+});
