@@ -1,11 +1,11 @@
 import type { Rejection } from '../model/rejection.js';
 import type { DepthSignDecision, LogFormat, Provenance, Track, TrackRole, Waypoint } from '../model/track.js';
-import { TrackBuilder } from '../model/track-builder.js';
+import { FixColumnAppender } from './append-fix-columns.js';
 import type { ColumnReportEntry, LogReadResult } from './log-read-result.js';
 import type { ReadEvent } from './read-event.js';
 
 interface OpenTrack {
-  builder: TrackBuilder;
+  builder: FixColumnAppender;
   role: TrackRole;
   name?: string;
   provenance: Partial<Provenance>;
@@ -36,7 +36,7 @@ export function collectReadEvents(
   let nonFixRowCount = 0;
   let dialect: string = context.format;
   const openTrack = (role: TrackRole, name?: string, provenance: Partial<Provenance> = {}): OpenTrack => {
-    const track: OpenTrack = { builder: new TrackBuilder(1024), role, provenance };
+    const track: OpenTrack = { builder: new FixColumnAppender(1024), role, provenance };
     if (name !== undefined) track.name = name;
     open.push(track);
     return track;
@@ -52,6 +52,10 @@ export function collectReadEvents(
       case 'fix':
         if (current === undefined) current = openTrack('vehicle');
         current.builder.push(event.fix, event.line);
+        break;
+      case 'fix-batch':
+        if (current === undefined) current = openTrack('vehicle');
+        current.builder.pushBatch(event.batch);
         break;
       case 'waypoint':
         waypoints.push(event.waypoint);

@@ -14,6 +14,7 @@ import { decodeLogText } from './decode-log-text.js';
 import type { ColumnReportEntry, LogInput, LogReadResult, ReadOptions } from './log-read-result.js';
 import { type CsvColumnMap, type MappedColumn, mapCsvColumns } from './map-csv-columns.js';
 import { parseCoordinate } from './parse-coordinate.js';
+import { FastCsvRowReader } from './parse-csv-row-fast.js';
 import { LogTimeParser, type ParsedTime } from './parse-log-time.js';
 import { projectRowsToWgs84 } from './project-rows.js';
 import type { ReadEvent } from './read-event.js';
@@ -58,9 +59,15 @@ export function* readCsvEvents(
   const lines = splitLogLines(input.chunks, { joinQuoted: true });
   // 1. gather a sample
   const head: LogLine[] = [];
-  for (const line of lines) {
-    head.push(line);
-    if (head.filter((l) => l.text.trim() !== '' && !isComment(l.text)).length >= SAMPLE_LINES) break;
+  let contentLines = 0;
+  // pull the sample by hand: breaking out of a for-of would close the line generator
+  for (
+    let next = lines.next();
+    !next.done;
+    next = contentLines >= SAMPLE_LINES ? { done: true, value: undefined } : lines.next()
+  ) {
+    head.push(next.value);
+    if (next.value.text.trim() !== '' && !isComment(next.value.text)) contentLines++;
   }
   const content = head.filter((l) => l.tooLongChars === undefined && l.text.trim() !== '' && !isComment(l.text));
   const delimiter = detectDelimiter(content.map((l) => l.text));
@@ -73,8 +80,10 @@ export function* readCsvEvents(
   if (layout !== undefined) Object.assign(layout, { delimiter, decimalComma, hasHeader, map });
   const cols = map.columns;
   const projected = cols.latDeg === undefined && cols.easting !== undefined && cols.northing !== undefined;
-  const role: TrackRole =
-    options.role ?? (map.surfaceOnly || /surface|ship|vessel|boat/i.test(baseName(file)) ? 'surface' : 'vehicle');
+  // A file named as the surface unit's log is one, unless its columns tell vehicle and surface apart.
+  const hasSurfaceColumns = cols.surfaceLatDeg !== undefined || cols.surfaceLonDeg !== undefined;
+  const namedSurface = !hasSurfaceColumns && /(^|[^a-z])(surface|ship|vessel|boat)([^a-z]|$)/i.test(baseName(file));
+  const role: TrackRole = options.role ?? (map.surfaceOnly || namedSurface ? 'surface' : 'vehicle');
   const dialect = [
     'csv',
     `delimiter=${DELIMITER_NAMES[delimiter] ?? delimiter}`,
@@ -153,6 +162,10 @@ export function* readCsvEvents(
     projectedBuffer.length = 0;
   };
   let headerSeen = !hasHeader;
+  const fast =
+    projected || missingTime !== undefined || missingPosition !== undefined
+      ? undefined
+      : FastCsvRowReader.create(map, delimiter, decimalComma, width);
   const all = (function* () {
     yield* head;
     yield* lines;
@@ -173,6 +186,20 @@ export function* readCsvEvents(
       headerSeen = true;
       yield { kind: 'non-fix-row', line, why: 'header' };
       continue;
+    }
+    if (fast !== undefined) {
+      if (text.indexOf('"') < 0 && fast.read(text, line)) {
+        if (fast.full) {
+          yield { kind: 'fix-batch', batch: fast.batch };
+          fast.reset();
+        }
+        continue;
+      }
+      // the general path keeps the order of rows: hand on what the fast path gathered first
+      if (fast.batch.count > 0) {
+        yield { kind: 'fix-batch', batch: fast.batch };
+        fast.reset();
+      }
     }
     const cells = splitCsvRecord(text, delimiter);
     if (cells.length !== width && !(cells.length === width + 1 && (cells[width] ?? '').trim() === '')) {
@@ -340,6 +367,14 @@ export function* readCsvEvents(
     yield { kind: 'fix', fix, line };
   }
   yield* flushProjected();
+  if (fast !== undefined && fast.batch.count > 0) {
+    yield { kind: 'fix-batch', batch: fast.batch };
+    fast.reset();
+  }
+  if (fast !== undefined) {
+    depthCount += fast.depthCount;
+    negativeDepthCount += fast.negativeDepthCount;
+  }
   if (times.sawZonelessTimeAsUtc)
     yield { kind: 'note', text: 'times without a UTC offset were read as UTC (no time zone given)' };
   if (times.sawAmbiguousLocalTime)

@@ -1,5 +1,16 @@
 import type { Rejection } from '../model/rejection.js';
-import type { DepthSignDecision, Fix, Provenance, TrackRole, Waypoint } from '../model/track.js';
+import type { DepthSignDecision, Fix, FixColumnName, Provenance, TrackRole, Waypoint } from '../model/track.js';
+
+/**
+ * Many fixes at once, column by column (the fast path of the tabular readers). Arrays may be longer
+ * than `count`; only the first `count` values are fixes. The reader reuses the arrays after the
+ * consumer asks for the next event, so a consumer copies what it keeps. A column left out is `NaN`.
+ */
+export interface FixBatch {
+  count: number;
+  lines: Uint32Array;
+  columns: Partial<Record<FixColumnName, Float64Array>>;
+}
 
 /**
  * What a streaming reader yields, in file order. Fixes belong to the track most recently opened
@@ -9,6 +20,7 @@ export type ReadEvent =
   | { kind: 'track'; role: TrackRole; name?: string; provenance?: Partial<Provenance> }
   | { kind: 'segment' }
   | { kind: 'fix'; fix: Fix; line: number }
+  | { kind: 'fix-batch'; batch: FixBatch }
   | { kind: 'waypoint'; waypoint: Waypoint }
   | { kind: 'rejection'; rejection: Rejection }
   /** A source row that is neither a fix nor a rejection on purpose: a header, a comment, an NMEA sentence merged into a neighbouring fix. */

@@ -1,6 +1,6 @@
 import type { Feature, FeatureCollection, Geometry, Position } from 'geojson';
 import type { RejectionCode } from '../model/rejection.js';
-import type { Fix, TrackRole } from '../model/track.js';
+import type { DepthSignDecision, Fix, TrackRole } from '../model/track.js';
 import { collectReadEvents } from './collect-read-events.js';
 import { decodeLogText } from './decode-log-text.js';
 import type { LogInput, LogReadResult, ReadOptions } from './log-read-result.js';
@@ -90,7 +90,8 @@ export function* readGeoJsonEvents(
     }
     if (geometry.type === 'LineString' || geometry.type === 'MultiLineString') {
       const lines = geometry.type === 'LineString' ? [geometry.coordinates] : geometry.coordinates;
-      const rawTimes = props.coordTimes ?? props.times;
+      const coordinateProperties = (props.coordinateProperties ?? {}) as Record<string, unknown>;
+      const rawTimes = props.coordTimes ?? props.times ?? coordinateProperties.times;
       const timeLines: unknown[][] = Array.isArray(rawTimes)
         ? geometry.type === 'LineString' || !Array.isArray(rawTimes[0])
           ? [rawTimes]
@@ -102,6 +103,8 @@ export function* readGeoJsonEvents(
       if (name !== undefined) event.name = name;
       yield event;
       pointTrackOpen = false;
+      const eleBefore = eleCount;
+      const positiveBefore = elePositive;
       for (let li = 0; li < lines.length; li++) {
         yield { kind: 'segment' };
         const coordinates = lines[li] ?? [];
@@ -122,6 +125,7 @@ export function* readGeoJsonEvents(
           yield { kind: 'fix', fix: position.fix, line: 0 };
         }
       }
+      yield { kind: 'depth-sign', decision: decideDepthSign(eleCount - eleBefore, elePositive - positiveBefore, role) };
       continue;
     }
     if (geometry.type === 'Point') {
@@ -178,6 +182,23 @@ export function* readGeoJsonEvents(
     };
   }
   yield { kind: 'end', rowCount, dialect: format };
+}
+
+function decideDepthSign(count: number, positive: number, role: TrackRole): DepthSignDecision {
+  if (count === 0) return { rule: 'none', doubtful: false, reason: 'the positions have no third coordinate' };
+  if (positive === count && role === 'vehicle') {
+    return {
+      rule: 'negated-elevation',
+      doubtful: true,
+      reason:
+        'depth = -(third coordinate), but every one is above the surface for a vehicle track: the log may have written depth as elevation',
+    };
+  }
+  return {
+    rule: 'negated-elevation',
+    doubtful: false,
+    reason: 'depth = -(third coordinate), an elevation in metres (RFC 7946)',
+  };
 }
 
 function toFeatures(data: unknown): Feature[] | undefined {

@@ -14,12 +14,18 @@ import { findForbiddenXml } from './refuse-forbidden-xml.js';
 
 /** Text fed to the XML parser at a time: keeps the event queue, not the file, in memory. */
 const FEED_CHARS = 1 << 20;
+/** Longest element text kept (names, descriptions); the rest is dropped. */
+const MAX_TEXT_CHARS = 4096;
 
 const DEPTH_NAMES = /^(depth|dpt|waterdepth|depthm|depth_m)$/i;
 const HEADING_NAMES = /^(heading|hdg|yaw)$/i;
 const SPEED_NAMES = /^(speed|sog)$/i;
 const RANGE_NAMES = /^(slantrange|slant_range|range)$/i;
 const BEARING_NAMES = /^(bearing|brg)$/i;
+const QUALITY_NAMES = /^(quality|fixquality)$/i;
+const SURFACE_LAT_NAMES = /^(surface|ship|vessel)_?lat(itude)?$/i;
+const SURFACE_LON_NAMES = /^(surface|ship|vessel)_?lon(gitude)?$/i;
+const SURFACE_HEADING_NAMES = /^(surface|ship|vessel)_?heading$/i;
 const SURFACE_TRACK = /surface|ship|vessel|boat|topside/i;
 const UNDERWATER_HINT = /\b(rov|auv|vehicle|diver|dive|transponder|beacon|underwater)\b/i;
 
@@ -38,6 +44,10 @@ interface PointState {
   speed?: string;
   range?: string;
   bearing?: string;
+  quality?: string;
+  surfaceLat?: string;
+  surfaceLon?: string;
+  surfaceHeading?: string;
   fix?: string;
 }
 
@@ -57,8 +67,8 @@ interface TrackStats {
  * `surface` when its name or type says surface unit, ship or vessel), each `trkseg` a segment,
  * each `wpt` a waypoint. Depth comes from an extension element named like depth in any namespace
  * (positive down), else from `ele` negated; a vehicle track whose `ele` is all positive is reported
- * as doubtful, never silently flipped. Heading, speed, slant range and bearing are taken from
- * extension (or GPX 1.0 `course`/`speed`) elements. Refuses DOCTYPE entity declarations before
+ * as doubtful, never silently flipped. Heading, speed, slant range, bearing, quality and surface position come from
+ * extension elements by local name (and GPX 1.0 `speed`). Refuses DOCTYPE entity declarations before
  * parsing (`forbidden-xml-construct`). Rejections: `malformed-xml` (reading stops; earlier points
  * stay), `missing-value` (a track point without time), `unparsable-coordinate`,
  * `latitude-out-of-range`, `longitude-out-of-range`, `unparsable-time`, `time-out-of-range`,
@@ -103,7 +113,7 @@ export function* readGpxEvents(input: LogTextInput, options: ReadOptions = {}): 
       'malformed-xml',
       'well-formed XML',
       error.message.replace(/^[^:]*:\d+:\d+: /, ''),
-      parser.column,
+      parser.column > 0 ? parser.column : undefined,
     );
   });
   parser.on('opentag', (tag: SaxesTagPlain) => {
@@ -148,11 +158,12 @@ export function* readGpxEvents(input: LogTextInput, options: ReadOptions = {}): 
       };
     }
   });
+  // Element text is capped: a 200 MB <name> must not be copied around; values that long are never numbers or times.
   parser.on('text', (t) => {
-    text += t;
+    if (text.length < MAX_TEXT_CHARS) text += t.length > MAX_TEXT_CHARS ? t.slice(0, MAX_TEXT_CHARS) : t;
   });
   parser.on('cdata', (t) => {
-    text += t;
+    if (text.length < MAX_TEXT_CHARS) text += t.length > MAX_TEXT_CHARS ? t.slice(0, MAX_TEXT_CHARS) : t;
   });
   parser.on('closetag', (tag) => {
     if (failed) return;
@@ -177,6 +188,10 @@ export function* readGpxEvents(input: LogTextInput, options: ReadOptions = {}): 
       else if (SPEED_NAMES.test(local)) point.speed = value;
       else if (RANGE_NAMES.test(local)) point.range = value;
       else if (BEARING_NAMES.test(local)) point.bearing = value;
+      else if (QUALITY_NAMES.test(local)) point.quality = value;
+      else if (SURFACE_LAT_NAMES.test(local)) point.surfaceLat = value;
+      else if (SURFACE_LON_NAMES.test(local)) point.surfaceLon = value;
+      else if (SURFACE_HEADING_NAMES.test(local)) point.surfaceHeading = value;
       return;
     }
     if (track !== undefined) {
@@ -223,6 +238,10 @@ export function* readGpxEvents(input: LogTextInput, options: ReadOptions = {}): 
       ['speed', p.speed],
       ['range', p.range],
       ['bearing', p.bearing],
+      ['quality', p.quality],
+      ['surfaceLat', p.surfaceLat],
+      ['surfaceLon', p.surfaceLon],
+      ['surfaceHeading', p.surfaceHeading],
     ] as const) {
       if (raw === undefined || raw === '') continue;
       const n = Number(raw);
@@ -265,6 +284,10 @@ export function* readGpxEvents(input: LogTextInput, options: ReadOptions = {}): 
     if (numbers.speed !== undefined) fix.speedMps = numbers.speed;
     if (numbers.range !== undefined) fix.slantRangeM = numbers.range;
     if (numbers.bearing !== undefined) fix.bearingDeg = normaliseAzimuthDeg(numbers.bearing);
+    if (numbers.quality !== undefined) fix.quality = numbers.quality;
+    if (numbers.surfaceLat !== undefined && Math.abs(numbers.surfaceLat) <= 90) fix.surfaceLatDeg = numbers.surfaceLat;
+    if (numbers.surfaceLon !== undefined && Math.abs(numbers.surfaceLon) <= 180) fix.surfaceLonDeg = numbers.surfaceLon;
+    if (numbers.surfaceHeading !== undefined) fix.surfaceHeadingDeg = normaliseAzimuthDeg(numbers.surfaceHeading);
     queue.push({ kind: 'fix', fix, line: p.line });
   };
   for (const chunk of input.chunks) {

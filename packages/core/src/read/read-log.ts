@@ -18,7 +18,6 @@ const EXTENSION_FORMATS: Record<string, LogFormat> = {
   gpx: 'gpx',
   csv: 'csv',
   tsv: 'csv',
-  txt: 'csv',
   nmea: 'nmea',
   nma: 'nmea',
   '0183': 'nmea',

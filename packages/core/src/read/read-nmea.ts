@@ -4,6 +4,7 @@ import { MPS_PER_KNOT, normaliseAzimuthDeg } from '../model/units.js';
 import { collectReadEvents } from './collect-read-events.js';
 import { decodeLogText } from './decode-log-text.js';
 import type { LogInput, LogReadResult, ReadOptions } from './log-read-result.js';
+import { parseDecimal } from './parse-csv-row-fast.js';
 import { LogTimeParser } from './parse-log-time.js';
 import { type LogTextInput, refusedLog } from './read-csv.js';
 import type { ReadEvent } from './read-event.js';
@@ -57,6 +58,7 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
   let lastTodMs: number | undefined;
   let current: Epoch | undefined;
   let extras: Partial<Fix> = {};
+  let extrasPending = false;
   const undated: Epoch[] = [];
   const unused = new Map<string, number>();
   let withoutChecksum = 0;
@@ -69,8 +71,10 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
     rejection:
       column === undefined ? { file, line, code, expected, found } : { file, line, column, code, expected, found },
   });
+  /** Events made by the helpers below, handed on after each sentence (plain functions: no generator per sentence). */
+  const out: ReadEvent[] = [];
   /** Dates an epoch from the carried date, rolling over at midnight. */
-  const dateEpoch = function* (epoch: Epoch): Generator<ReadEvent> {
+  const dateEpoch = (epoch: Epoch): void => {
     if (epoch.dayMs !== undefined) {
       dayMs = epoch.dayMs;
     } else if (dayMs !== undefined && lastTodMs !== undefined && epoch.todMs < lastTodMs - HALF_DAY_MS) {
@@ -79,24 +83,24 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
       dayMs -= DAY_MS; // a late sentence from before midnight
     }
     lastTodMs = epoch.todMs;
-    yield* emitEpoch(epoch, dayMs as number);
+    emitEpoch(epoch, dayMs as number);
   };
-  const emitEpoch = function* (epoch: Epoch, day: number): Generator<ReadEvent> {
+  const emitEpoch = (epoch: Epoch, day: number): void => {
     const t = times.acceptUtc(day + epoch.todMs);
     if (!t.ok) {
-      yield reject(epoch.line, t.code, t.expected, new Date(day + epoch.todMs).toISOString());
+      out.push(reject(epoch.line, t.code, t.expected, new Date(day + epoch.todMs).toISOString()));
       return;
     }
     epoch.fix.timeMs = t.timeMs;
-    yield { kind: 'fix', fix: epoch.fix, line: epoch.line };
+    out.push({ kind: 'fix', fix: epoch.fix, line: epoch.line });
   };
-  const flush = function* (): Generator<ReadEvent> {
+  const flush = (): void => {
     const epoch = current;
     current = undefined;
     if (epoch === undefined) return;
     if (dayMs === undefined && epoch.dayMs === undefined) {
       if (undated.length >= MAX_UNDATED_EPOCHS) {
-        yield reject(epoch.line, 'no-date', 'a date from an RMC or ZDA sentence before this fix', 'no date yet');
+        out.push(reject(epoch.line, 'no-date', 'a date from an RMC or ZDA sentence before this fix', 'no date yet'));
         return;
       }
       undated.push(epoch);
@@ -105,28 +109,32 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
     if (undated.length > 0) {
       const firstDay = epoch.dayMs ?? (dayMs as number);
       const anchorTod = epoch.todMs;
-      for (const u of undated) yield* emitEpoch(u, u.todMs > anchorTod + HALF_DAY_MS ? firstDay - DAY_MS : firstDay);
+      for (const u of undated) emitEpoch(u, u.todMs > anchorTod + HALF_DAY_MS ? firstDay - DAY_MS : firstDay);
       undated.length = 0;
     }
-    yield* dateEpoch(epoch);
+    dateEpoch(epoch);
   };
   /** Starts or joins the epoch at `todMs`; returns whether the sentence was merged into an open one. */
-  const joinEpoch = function* (todMs: number, line: number): Generator<ReadEvent, Epoch> {
+  const joinEpoch = (todMs: number, line: number): Epoch => {
     if (current !== undefined && current.todMs === todMs) {
-      yield { kind: 'non-fix-row', line, why: 'merged into the fix of the same time' };
+      out.push({ kind: 'non-fix-row', line, why: 'merged into the fix of the same time' });
       return current;
     }
-    yield* flush();
-    current = {
-      todMs,
-      line,
-      fix: { timeMs: Number.NaN, latDeg: Number.NaN, lonDeg: Number.NaN, ...extras },
-      hasPosition: false,
-    };
-    extras = {};
+    flush();
+    const fix: Fix = { timeMs: Number.NaN, latDeg: Number.NaN, lonDeg: Number.NaN };
+    if (extrasPending) {
+      Object.assign(fix, extras);
+      extras = {};
+      extrasPending = false;
+    }
+    current = { todMs, line, fix, hasPosition: false };
     return current;
   };
   for (const { text, line, tooLongChars } of splitLogLines(input.chunks)) {
+    if (out.length > 0) {
+      for (let k = 0; k < out.length; k++) yield out[k] as ReadEvent;
+      out.length = 0;
+    }
     if (tooLongChars !== undefined) {
       rowCount++;
       yield reject(line, 'line-too-long', 'an NMEA sentence of at most 82 characters', `${tooLongChars} characters`);
@@ -177,16 +185,21 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
       continue;
     }
     const type = address.slice(address.length - 3).toUpperCase();
-    const f = (i: number) => fields[i] ?? '';
     switch (type) {
       case 'GGA': {
-        const tod = parseTimeOfDay(f(1));
+        const tod = parseTimeOfDay(field(fields, 1));
         if (tod === undefined) {
-          yield reject(line, 'unparsable-time', 'a UTC time of day hhmmss.ss in GGA field 1', quote(f(1)), 2);
+          yield reject(
+            line,
+            'unparsable-time',
+            'a UTC time of day hhmmss.ss in GGA field 1',
+            quote(field(fields, 1)),
+            2,
+          );
           continue;
         }
-        const quality = f(6) === '' ? Number.NaN : Number(f(6));
-        if (quality === 0 || f(2) === '' || f(4) === '') {
+        const quality = field(fields, 6) === '' ? Number.NaN : Number(field(fields, 6));
+        if (quality === 0 || field(fields, 2) === '' || field(fields, 4) === '') {
           yield reject(
             line,
             'no-fix',
@@ -195,26 +208,28 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
           );
           continue;
         }
-        const lat = parseNmeaCoordinate(f(2), f(3), 'lat');
-        const lon = parseNmeaCoordinate(f(4), f(5), 'lon');
+        const lat = parseNmeaCoordinate(field(fields, 2), field(fields, 3), 'lat');
+        const lon = parseNmeaCoordinate(field(fields, 4), field(fields, 5), 'lon');
         if (lat === undefined || lon === undefined) {
           yield reject(
             line,
             'unparsable-coordinate',
             lat === undefined ? 'latitude ddmm.mmmm with N or S' : 'longitude dddmm.mmmm with E or W',
-            quote(lat === undefined ? `${f(2)},${f(3)}` : `${f(4)},${f(5)}`),
+            quote(
+              lat === undefined ? `${field(fields, 2)},${field(fields, 3)}` : `${field(fields, 4)},${field(fields, 5)}`,
+            ),
           );
           continue;
         }
-        const epoch = yield* joinEpoch(tod, line);
+        const epoch = joinEpoch(tod, line);
         if (!epoch.hasPosition) {
           epoch.fix.latDeg = lat;
           epoch.fix.lonDeg = lon;
           epoch.hasPosition = true;
         }
         if (!Number.isNaN(quality)) epoch.fix.quality = quality;
-        const altitude = Number(f(9));
-        if (f(9) !== '' && Number.isFinite(altitude)) {
+        const altitude = Number(field(fields, 9));
+        if (field(fields, 9) !== '' && Number.isFinite(altitude)) {
           epoch.fix.depthM = -altitude + 0;
           altitudes++;
           if (altitude > 0) positiveAltitudes++;
@@ -222,13 +237,19 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
         break;
       }
       case 'RMC': {
-        const tod = parseTimeOfDay(f(1));
+        const tod = parseTimeOfDay(field(fields, 1));
         if (tod === undefined) {
-          yield reject(line, 'unparsable-time', 'a UTC time of day hhmmss.ss in RMC field 1', quote(f(1)), 2);
+          yield reject(
+            line,
+            'unparsable-time',
+            'a UTC time of day hhmmss.ss in RMC field 1',
+            quote(field(fields, 1)),
+            2,
+          );
           continue;
         }
-        const day = parseNmeaDate(f(9));
-        if (f(2) !== 'A' || f(3) === '' || f(5) === '') {
+        const day = parseNmeaDate(field(fields, 9));
+        if (field(fields, 2) !== 'A' || field(fields, 3) === '' || field(fields, 5) === '') {
           if (day !== undefined && current === undefined) {
             dayMs = day;
             lastTodMs = tod;
@@ -237,46 +258,48 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
             line,
             'no-fix',
             'an RMC with status A and a position',
-            f(2) === 'V' ? 'status V (warning, no valid fix)' : 'an empty position',
+            field(fields, 2) === 'V' ? 'status V (warning, no valid fix)' : 'an empty position',
           );
           continue;
         }
-        const lat = parseNmeaCoordinate(f(3), f(4), 'lat');
-        const lon = parseNmeaCoordinate(f(5), f(6), 'lon');
+        const lat = parseNmeaCoordinate(field(fields, 3), field(fields, 4), 'lat');
+        const lon = parseNmeaCoordinate(field(fields, 5), field(fields, 6), 'lon');
         if (lat === undefined || lon === undefined) {
           yield reject(
             line,
             'unparsable-coordinate',
             lat === undefined ? 'latitude ddmm.mmmm with N or S' : 'longitude dddmm.mmmm with E or W',
-            quote(lat === undefined ? `${f(3)},${f(4)}` : `${f(5)},${f(6)}`),
+            quote(
+              lat === undefined ? `${field(fields, 3)},${field(fields, 4)}` : `${field(fields, 5)},${field(fields, 6)}`,
+            ),
           );
           continue;
         }
-        if (f(9) !== '' && day === undefined) {
-          yield reject(line, 'unparsable-time', 'an RMC date ddmmyy in field 9', quote(f(9)), 10);
+        if (field(fields, 9) !== '' && day === undefined) {
+          yield reject(line, 'unparsable-time', 'an RMC date ddmmyy in field 9', quote(field(fields, 9)), 10);
           continue;
         }
-        const epoch = yield* joinEpoch(tod, line);
+        const epoch = joinEpoch(tod, line);
         if (!epoch.hasPosition) {
           epoch.fix.latDeg = lat;
           epoch.fix.lonDeg = lon;
           epoch.hasPosition = true;
         }
         if (day !== undefined) epoch.dayMs = day;
-        const sog = Number(f(7));
-        if (f(7) !== '' && Number.isFinite(sog) && Number.isNaN(epoch.fix.speedMps ?? Number.NaN))
+        const sog = Number(field(fields, 7));
+        if (field(fields, 7) !== '' && Number.isFinite(sog) && Number.isNaN(epoch.fix.speedMps ?? Number.NaN))
           epoch.fix.speedMps = sog * MPS_PER_KNOT;
         break;
       }
       case 'VTG': {
         // Older form `$--VTG,x.x,x,x.x,x.x`: field 2 is not the literal T (NMEA Revealed, VTG).
-        const newer = f(2) === 'T' || f(2) === '';
-        const knots = Number(newer ? f(5) : f(3));
-        const kmh = Number(newer ? f(7) : f(4));
+        const newer = field(fields, 2) === 'T' || field(fields, 2) === '';
+        const knots = Number(newer ? field(fields, 5) : field(fields, 3));
+        const kmh = Number(newer ? field(fields, 7) : field(fields, 4));
         const speed =
-          (newer ? f(5) : f(3)) !== '' && Number.isFinite(knots)
+          (newer ? field(fields, 5) : field(fields, 3)) !== '' && Number.isFinite(knots)
             ? knots * MPS_PER_KNOT
-            : (newer ? f(7) : f(4)) !== '' && Number.isFinite(kmh)
+            : (newer ? field(fields, 7) : field(fields, 4)) !== '' && Number.isFinite(kmh)
               ? kmh / 3.6
               : Number.NaN;
         attach({ speedMps: speed });
@@ -284,19 +307,19 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
         break;
       }
       case 'HDT': {
-        const heading = Number(f(1));
-        if (f(1) !== '' && Number.isFinite(heading)) attach({ headingDeg: normaliseAzimuthDeg(heading) });
+        const heading = Number(field(fields, 1));
+        if (field(fields, 1) !== '' && Number.isFinite(heading)) attach({ headingDeg: normaliseAzimuthDeg(heading) });
         yield { kind: 'non-fix-row', line, why: 'HDT merged into the current fix' };
         break;
       }
       case 'HDG': {
-        const magnetic = Number(f(1));
-        const deviation = f(2) === '' ? 0 : Number(f(2)) * (f(3) === 'W' ? -1 : 1);
-        if (f(1) !== '' && Number.isFinite(magnetic)) {
-          if (f(4) === '') magneticWithoutVariation++;
+        const magnetic = Number(field(fields, 1));
+        const deviation = field(fields, 2) === '' ? 0 : Number(field(fields, 2)) * (field(fields, 3) === 'W' ? -1 : 1);
+        if (field(fields, 1) !== '' && Number.isFinite(magnetic)) {
+          if (field(fields, 4) === '') magneticWithoutVariation++;
           else {
             // true = magnetic + deviation + variation, east positive (NMEA HDG; from memory)
-            const variation = Number(f(4)) * (f(5) === 'W' ? -1 : 1);
+            const variation = Number(field(fields, 4)) * (field(fields, 5) === 'W' ? -1 : 1);
             const heading = magnetic + deviation + variation;
             if (Number.isFinite(heading)) attach({ headingDeg: normaliseAzimuthDeg(heading) });
           }
@@ -305,19 +328,19 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
         break;
       }
       case 'ZDA': {
-        const tod = parseTimeOfDay(f(1));
-        const d = Number(f(2));
-        const m = Number(f(3));
-        const y = Number(f(4));
-        const valid = tod !== undefined && /^\d{4}$/.test(f(4)) && d >= 1 && d <= 31 && m >= 1 && m <= 12;
+        const tod = parseTimeOfDay(field(fields, 1));
+        const d = Number(field(fields, 2));
+        const m = Number(field(fields, 3));
+        const y = Number(field(fields, 4));
+        const valid = tod !== undefined && /^\d{4}$/.test(field(fields, 4)) && d >= 1 && d <= 31 && m >= 1 && m <= 12;
         if (!valid) {
           yield reject(line, 'unparsable-time', 'a ZDA with hhmmss.ss, day, month and 4-digit year', quote(sentence));
           continue;
         }
-        yield* flush();
+        flush();
         const day = Date.UTC(y, m - 1, d);
         if (undated.length > 0) {
-          for (const u of undated) yield* emitEpoch(u, u.todMs > tod + HALF_DAY_MS ? day - DAY_MS : day);
+          for (const u of undated) emitEpoch(u, u.todMs > tod + HALF_DAY_MS ? day - DAY_MS : day);
           undated.length = 0;
         }
         dayMs = day;
@@ -330,7 +353,9 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
         yield { kind: 'non-fix-row', line, why: 'sentence type not used' };
     }
   }
-  yield* flush();
+  flush();
+  yield* out;
+  out.length = 0;
   for (const u of undated)
     yield reject(u.line, 'no-date', 'a date from an RMC or ZDA sentence somewhere in the log', 'none in the whole log');
   undated.length = 0;
@@ -365,6 +390,7 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
   yield { kind: 'end', rowCount, dialect: 'nmea-0183' };
 
   function attach(values: Partial<Fix>): void {
+    if (current === undefined) extrasPending = true;
     const target = current === undefined ? extras : current.fix;
     for (const [k, v] of Object.entries(values))
       if (typeof v === 'number' && !Number.isNaN(v)) (target as Record<string, number>)[k] = v;
@@ -373,12 +399,31 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
 
 /** `hhmmss[.ss]` to milliseconds after midnight; `undefined` when malformed. */
 export function parseTimeOfDay(text: string): number | undefined {
-  if (!/^\d{6}(\.\d+)?$/.test(text)) return undefined;
-  const h = Number(text.slice(0, 2));
-  const m = Number(text.slice(2, 4));
-  const s = Number(text.slice(4));
-  if (h > 23 || m > 59 || s >= 61) return undefined;
-  return Math.round((h * 3600 + m * 60 + s) * 1000);
+  const n = text.length;
+  if (n < 6 || (n > 6 && (n === 7 || text.charCodeAt(6) !== 46))) return undefined;
+  const h = twoDigits(text, 0);
+  const m = twoDigits(text, 2);
+  const whole = twoDigits(text, 4);
+  if (h < 0 || m < 0 || whole < 0 || h > 23 || m > 59 || whole > 60) return undefined;
+  let fractionMs = 0;
+  let scale = 100;
+  for (let i = 7; i < n; i++) {
+    const d = text.charCodeAt(i) - 48;
+    if (d < 0 || d > 9) return undefined;
+    fractionMs += d * scale;
+    scale /= 10;
+  }
+  return Math.round((h * 3600 + m * 60 + whole) * 1000 + fractionMs);
+}
+
+function twoDigits(text: string, at: number): number {
+  const a = text.charCodeAt(at) - 48;
+  const b = text.charCodeAt(at + 1) - 48;
+  return a < 0 || a > 9 || b < 0 || b > 9 ? -1 : a * 10 + b;
+}
+
+function field(fields: readonly string[], index: number): string {
+  return fields[index] ?? '';
 }
 
 /** `ddmmyy` to 00:00 UTC ms; two-digit years 80-99 are 19xx, 00-79 are 20xx (common practice for NMEA dates). */
@@ -394,16 +439,22 @@ export function parseNmeaDate(text: string): number | undefined {
 /** NMEA `(d)ddmm.mmmm` plus hemisphere letter to signed degrees; `undefined` when malformed or out of range. */
 export function parseNmeaCoordinate(value: string, hemisphere: string, axis: 'lat' | 'lon'): number | undefined {
   const degDigits = axis === 'lat' ? 2 : 3;
-  if (!/^\d+(\.\d+)?$/.test(value)) return undefined;
   const dot = value.indexOf('.');
   const intLength = dot < 0 ? value.length : dot;
-  if (intLength !== degDigits + 2) return undefined;
-  const deg = Number(value.slice(0, degDigits));
-  const min = Number(value.slice(degDigits));
-  if (min >= 60) return undefined;
-  const magnitude = deg + min / 60;
+  if (intLength !== degDigits + 2 || value.length === dot + 1) return undefined;
   const valid = axis === 'lat' ? hemisphere === 'N' || hemisphere === 'S' : hemisphere === 'E' || hemisphere === 'W';
-  if (!valid || magnitude > (axis === 'lat' ? 90 : 180)) return undefined;
+  if (!valid) return undefined;
+  let deg = 0;
+  for (let i = 0; i < degDigits; i++) {
+    const d = value.charCodeAt(i) - 48;
+    if (d < 0 || d > 9) return undefined;
+    deg = deg * 10 + d;
+  }
+  const min = parseDecimal(value, degDigits, value.length);
+  if (Number.isNaN(min) || min >= 60 || value.charCodeAt(degDigits) === 45 || value.charCodeAt(degDigits) === 43)
+    return undefined;
+  const magnitude = deg + min / 60;
+  if (magnitude > (axis === 'lat' ? 90 : 180)) return undefined;
   return hemisphere === 'S' || hemisphere === 'W' ? -magnitude : magnitude;
 }
 

@@ -54,10 +54,17 @@ export async function validateGpx(fileName: string, text: string): Promise<GpxVa
       // --nonet: never fetch anything a log points at
       modifyArguments: (args) => ['--nonet', ...args],
     });
-    const messages = result.errors.map((e) => ({
-      line: e.loc?.lineNumber ?? 0,
-      message: e.message.replace(/^Schemas validity error : /, '').trim(),
-    }));
+    // xmllint prints a parser error as three lines (message, source excerpt, caret); keep the message
+    const messages = result.errors
+      .filter((e) => e.loc !== null)
+      .map((e) => ({
+        line: e.loc?.lineNumber ?? 0,
+        message: e.message
+          .replace(/^Schemas validity error : /, '')
+          .replace(/^parser error : /, 'not well-formed: ')
+          .trim(),
+      }))
+      .filter((m) => m.message !== '' && m.message !== '^');
     return { schema, valid: result.valid, messages };
   } catch (error) {
     return {

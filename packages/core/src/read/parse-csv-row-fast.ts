@@ -1,0 +1,295 @@
+import type { FixColumnName } from '../model/track.js';
+import { normaliseAzimuthDeg, toMetres, toMetresPerSecond } from '../model/units.js';
+import type { CsvColumnMap } from './map-csv-columns.js';
+import { EARLIEST_TIME_MS, LATEST_TIME_MS } from './parse-log-time.js';
+import type { FixBatch } from './read-event.js';
+
+/** Rows gathered before a batch is handed on. */
+export const FAST_BATCH_ROWS = 4096;
+
+const KIND_IGNORE = 0;
+const KIND_TIME_ISO = 1;
+const KIND_TIME_S = 2;
+const KIND_TIME_MS = 3;
+const KIND_NUMBER = 4;
+const KIND_LAT = 5;
+const KIND_LON = 6;
+
+/** 10^k for k = 0..22, all exact in binary64. */
+const POW10 = Array.from({ length: 23 }, (_, k) => 10 ** k);
+
+/**
+ * The hot path of the CSV reader for rows in the plain form (no quotes, decimal degrees, `Z`
+ * ISO times or epoch numbers, plain numbers): fields are read in place by character codes without
+ * copying. A row it cannot read with certainty is left to the general path, which reads it or
+ * rejects it with a reason; so this path never rejects and never changes a result, it only skips work.
+ */
+export class FastCsvRowReader {
+  readonly batch: FixBatch;
+  depthCount = 0;
+  negativeDepthCount = 0;
+  readonly #delimiter: string;
+  readonly #decimalMark2: number;
+  readonly #width: number;
+  readonly #kinds: Int8Array;
+  readonly #targets: (Float64Array | undefined)[];
+  readonly #scales: Float64Array;
+  readonly #wrap: Uint8Array;
+  readonly #required: Uint8Array;
+  #dayKey = -1;
+  #dayMs = 0;
+
+  private constructor(delimiter: string, decimalComma: boolean, width: number) {
+    this.#delimiter = delimiter;
+    this.#decimalMark2 = decimalComma ? 44 : 46;
+    this.#width = width;
+    this.#kinds = new Int8Array(width);
+    this.#targets = new Array(width).fill(undefined);
+    this.#scales = new Float64Array(width).fill(1);
+    this.#wrap = new Uint8Array(width);
+    this.#required = new Uint8Array(width);
+    this.batch = { count: 0, lines: new Uint32Array(FAST_BATCH_ROWS), columns: {} };
+  }
+
+  /** A reader for this layout, or `undefined` when the layout needs the general path (projected, date + time columns). */
+  static create(
+    map: CsvColumnMap,
+    delimiter: string,
+    decimalComma: boolean,
+    width: number,
+  ): FastCsvRowReader | undefined {
+    const c = map.columns;
+    if (
+      c.latDeg === undefined ||
+      c.lonDeg === undefined ||
+      c.timeMs === undefined ||
+      c.time !== undefined ||
+      c.date !== undefined
+    )
+      return undefined;
+    if (delimiter.length !== 1 || width > 256) return undefined;
+    const reader = new FastCsvRowReader(delimiter, decimalComma, width);
+    const column = (name: FixColumnName): Float64Array => {
+      let array = reader.batch.columns[name];
+      if (array === undefined) {
+        array = new Float64Array(FAST_BATCH_ROWS);
+        reader.batch.columns[name] = array;
+      }
+      return array;
+    };
+    const form = c.timeMs.timeForm;
+    reader.#kinds[c.timeMs.index] =
+      form === 'epoch-s' ? KIND_TIME_S : form === 'epoch-ms' ? KIND_TIME_MS : KIND_TIME_ISO;
+    reader.#targets[c.timeMs.index] = column('timeMs');
+    reader.#required[c.timeMs.index] = 1;
+    reader.#kinds[c.latDeg.index] = KIND_LAT;
+    reader.#targets[c.latDeg.index] = column('latDeg');
+    reader.#required[c.latDeg.index] = 1;
+    reader.#kinds[c.lonDeg.index] = KIND_LON;
+    reader.#targets[c.lonDeg.index] = column('lonDeg');
+    reader.#required[c.lonDeg.index] = 1;
+    for (const [key, axis] of [
+      ['surfaceLatDeg', KIND_LAT],
+      ['surfaceLonDeg', KIND_LON],
+    ] as const) {
+      const mapped = c[key];
+      if (mapped === undefined) continue;
+      reader.#kinds[mapped.index] = axis;
+      reader.#targets[mapped.index] = column(key);
+    }
+    for (const key of [
+      'depthM',
+      'elevationM',
+      'headingDeg',
+      'speedMps',
+      'quality',
+      'slantRangeM',
+      'bearingDeg',
+      'surfaceHeadingDeg',
+    ] as const) {
+      const mapped = c[key];
+      if (mapped === undefined) continue;
+      if (key === 'elevationM' && c.depthM !== undefined) continue;
+      const target: FixColumnName = key === 'elevationM' ? 'depthM' : key;
+      reader.#kinds[mapped.index] = KIND_NUMBER;
+      reader.#targets[mapped.index] = column(target);
+      let scale = 1;
+      if (mapped.lengthUnit !== undefined && (key === 'depthM' || key === 'elevationM' || key === 'slantRangeM'))
+        scale = toMetres(1, mapped.lengthUnit);
+      if (mapped.speedUnit !== undefined && key === 'speedMps') scale = toMetresPerSecond(1, mapped.speedUnit);
+      if (key === 'elevationM') scale = -scale;
+      reader.#scales[mapped.index] = scale;
+      if (key === 'headingDeg' || key === 'bearingDeg' || key === 'surfaceHeadingDeg') reader.#wrap[mapped.index] = 1;
+    }
+    // every batch column starts as NaN for the columns a row may leave empty
+    for (const array of Object.values(reader.batch.columns)) array.fill(Number.NaN);
+    return reader;
+  }
+
+  /** Whether the batch is full and should be handed on. */
+  get full(): boolean {
+    return this.batch.count === FAST_BATCH_ROWS;
+  }
+
+  /** Empties the batch (after the consumer copied it). */
+  reset(): void {
+    this.batch.count = 0;
+  }
+
+  /** Reads one row into the batch; `false` (and nothing written) when the row needs the general path. */
+  read(text: string, line: number): boolean {
+    const k = this.batch.count;
+    const n = text.length;
+    const width = this.#width;
+    const kinds = this.#kinds;
+    const targets = this.#targets;
+    let start = 0;
+    let field = 0;
+    let depth = Number.NaN;
+    for (; field < width; field++) {
+      let end = text.indexOf(this.#delimiter, start);
+      if (end < 0) end = n;
+      else if (field === width - 1) {
+        // one more field than the header: only a trailing empty one is tolerated
+        if (end + 1 !== n) return false;
+      }
+      const kind = kinds[field] as number;
+      if (kind !== KIND_IGNORE) {
+        const target = targets[field] as Float64Array;
+        if (end === start) {
+          if (this.#required[field] === 1) return false;
+          target[k] = Number.NaN;
+        } else if (kind === KIND_TIME_ISO) {
+          const t = this.#isoZ(text, start, end);
+          if (Number.isNaN(t)) return false;
+          target[k] = t;
+        } else {
+          let v = parseDecimal(text, start, end, this.#decimalMark2);
+          if (Number.isNaN(v)) return false;
+          if (kind === KIND_LAT) {
+            if (v < -90 || v > 90) return false;
+          } else if (kind === KIND_LON) {
+            if (v < -180 || v > 180) return false;
+          } else if (kind === KIND_TIME_S || kind === KIND_TIME_MS) {
+            v = kind === KIND_TIME_S ? v * 1000 : v;
+            if (!(v >= EARLIEST_TIME_MS && v < LATEST_TIME_MS)) return false;
+          } else {
+            v = v * (this.#scales[field] as number) + 0;
+            if (this.#wrap[field] === 1 && (v < 0 || v >= 360)) v = normaliseAzimuthDeg(v);
+            if (target === this.batch.columns.depthM) depth = v;
+          }
+          target[k] = v;
+        }
+      }
+      if (end >= n) {
+        field++;
+        break;
+      }
+      start = end + 1;
+    }
+    if (field !== width) return false;
+    if (!Number.isNaN(depth)) {
+      this.depthCount++;
+      if (depth < 0) this.negativeDepthCount++;
+    }
+    this.batch.lines[k] = line;
+    this.batch.count = k + 1;
+    return true;
+  }
+
+  /** `YYYY-MM-DDTHH:MM:SS[.fff]Z` between `start` and `end`, or `NaN`. */
+  #isoZ(s: string, start: number, end: number): number {
+    const len = end - start;
+    if (len < 20 || s.charCodeAt(end - 1) !== 90) return Number.NaN;
+    if (s.charCodeAt(start + 4) !== 45 || s.charCodeAt(start + 7) !== 45) return Number.NaN;
+    const sep = s.charCodeAt(start + 10);
+    if ((sep !== 84 && sep !== 32) || s.charCodeAt(start + 13) !== 58 || s.charCodeAt(start + 16) !== 58)
+      return Number.NaN;
+    const year = digits(s, start, 4);
+    const month = digits(s, start + 5, 2);
+    const day = digits(s, start + 8, 2);
+    const hour = digits(s, start + 11, 2);
+    const minute = digits(s, start + 14, 2);
+    const second = digits(s, start + 17, 2);
+    if (
+      year < 0 ||
+      month < 1 ||
+      month > 12 ||
+      day < 1 ||
+      day > 28 ||
+      hour < 0 ||
+      hour > 23 ||
+      minute < 0 ||
+      minute > 59 ||
+      second < 0 ||
+      second > 59
+    ) {
+      return Number.NaN; // day 29-31 and leap seconds go the general way, which checks the calendar
+    }
+    let ms = 0;
+    if (len > 20) {
+      if (s.charCodeAt(start + 19) !== 46 || len === 21 || len > 30) return Number.NaN;
+      let scale = 100;
+      for (let i = start + 20; i < end - 1; i++) {
+        const d = s.charCodeAt(i) - 48;
+        if (d < 0 || d > 9) return Number.NaN;
+        ms += d * scale;
+        scale /= 10;
+      }
+    } else if (len !== 20) return Number.NaN;
+    const key = year * 10000 + month * 100 + day;
+    if (key !== this.#dayKey) {
+      this.#dayKey = key;
+      this.#dayMs = Date.UTC(year, month - 1, day);
+    }
+    const t = this.#dayMs + hour * 3_600_000 + minute * 60_000 + second * 1000 + ms;
+    return t >= EARLIEST_TIME_MS && t < LATEST_TIME_MS ? t : Number.NaN;
+  }
+}
+
+function digits(s: string, start: number, count: number): number {
+  let value = 0;
+  for (let i = start; i < start + count; i++) {
+    const d = s.charCodeAt(i) - 48;
+    if (d < 0 || d > 9) return -1;
+    value = value * 10 + d;
+  }
+  return value;
+}
+
+/**
+ * `[+-]digits[.digits]` between `start` and `end` (the second decimal mark may be a comma), or
+ * `NaN`. Exact: an integer mantissa below 2^53 divided by an exact power of ten is correctly
+ * rounded, as `Number()` would give; longer numbers go to `Number()`.
+ */
+export function parseDecimal(s: string, start: number, end: number, decimalMark2 = 46): number {
+  let i = start;
+  let negative = false;
+  const first = s.charCodeAt(i);
+  if (first === 45 || first === 43) {
+    negative = first === 45;
+    i++;
+  }
+  let mantissa = 0;
+  let digitCount = 0;
+  let fraction = -1;
+  for (; i < end; i++) {
+    const c = s.charCodeAt(i);
+    const d = c - 48;
+    if (d >= 0 && d <= 9) {
+      mantissa = mantissa * 10 + d;
+      digitCount++;
+      if (fraction >= 0) fraction++;
+    } else if ((c === 46 || c === decimalMark2) && fraction < 0) {
+      fraction = 0;
+    } else return Number.NaN;
+  }
+  if (digitCount === 0) return Number.NaN;
+  if (digitCount > 15) {
+    const text = s.slice(start, end);
+    const value = Number(decimalMark2 === 44 ? text.replace(',', '.') : text);
+    return Number.isFinite(value) ? value : Number.NaN;
+  }
+  const value = fraction > 0 ? mantissa / (POW10[fraction] as number) : mantissa;
+  return negative ? -value : value;
+}
