@@ -83,3 +83,8 @@ export function formatValue(value: number, decimals = 1): string {
 export function fixCount(count: number): string {
   return count === 1 ? '1 fix' : `${count} fixes`;
 }
+
+/** "1 fix jumps" / "3 fixes jump": the count with its noun and a verb that agrees. */
+export function fixesDo(count: number, singularVerb: string, pluralVerb: string): string {
+  return count === 1 ? `1 fix ${singularVerb}` : `${count} fixes ${pluralVerb}`;
+}

@@ -1,6 +1,6 @@
 import type { AuditContext } from '../audit-context.js';
 import type { Finding } from '../finding.js';
-import { findingsFromRuns, fixCount, formatValue } from '../findings-from-runs.js';
+import { findingsFromRuns, fixesDo, formatValue } from '../findings-from-runs.js';
 import { shareAboveSurface } from './check-depth-sign.js';
 
 /**
@@ -22,6 +22,6 @@ export function checkAboveSurface(context: AuditContext): Finding[] {
     limit: profile.aboveSurfaceToleranceM,
     unit: 'm',
     describe: (worst, count) =>
-      `${fixCount(count)} put the vehicle up to ${formatValue(worst)} m above the water surface; a depth offset or sensor fault.`,
+      `${fixesDo(count, 'puts', 'put')} the vehicle up to ${formatValue(worst)} m above the water surface; a depth offset or sensor fault.`,
   });
 }

@@ -1,6 +1,6 @@
 import { type AuditContext, SPREAD_HALF_WIDTH } from '../audit-context.js';
 import type { Finding } from '../finding.js';
-import { findingsFromRuns, fixCount, formatValue } from '../findings-from-runs.js';
+import { findingsFromRuns, fixesDo, formatValue } from '../findings-from-runs.js';
 import { localMedian } from '../robust-window.js';
 
 /**
@@ -32,6 +32,6 @@ export function checkPositionJumps(context: AuditContext): Finding[] {
     limit: profile.jumpFloorM,
     unit: 'm',
     describe: (worst, count) =>
-      `${fixCount(count)} jump up to ${formatValue(worst)} m away from the track around them (limit ${formatValue(profile.jumpFloorM)} m or ${formatValue(profile.jumpSpreadFactor)}× the local spread); likely acoustic outliers such as multipath.`,
+      `${fixesDo(count, 'jumps', 'jump')} up to ${formatValue(worst)} m away from the track around them (limit ${formatValue(profile.jumpFloorM)} m or ${formatValue(profile.jumpSpreadFactor)}× the local spread); likely acoustic outliers such as multipath.`,
   });
 }

@@ -1,7 +1,7 @@
 import type { AuditContext } from '../audit-context.js';
 import { estimateSlantRanges } from '../estimate-slant-ranges.js';
 import type { Finding } from '../finding.js';
-import { findingsFromRuns, fixCount, formatValue } from '../findings-from-runs.js';
+import { findingsFromRuns, fixesDo, formatValue } from '../findings-from-runs.js';
 
 /**
  * Vehicle beyond acoustic or tether range: a fix whose slant range from the surface unit (logged,
@@ -19,6 +19,6 @@ export function checkRangeFromSurface(context: AuditContext): Finding[] {
     limit,
     unit: 'm',
     describe: (worst, count) =>
-      `${fixCount(count)} put the vehicle ${formatValue(worst, 0)} m from the surface unit, beyond the ${formatValue(limit, 0)} m acoustic or tether range.`,
+      `${fixesDo(count, 'puts', 'put')} the vehicle ${formatValue(worst, 0)} m from the surface unit, beyond the ${formatValue(limit, 0)} m acoustic or tether range.`,
   });
 }

@@ -1,6 +1,6 @@
 import type { AuditContext } from '../audit-context.js';
 import type { Finding } from '../finding.js';
-import { findingsFromRuns, fixCount } from '../findings-from-runs.js';
+import { findingsFromRuns, fixesDo } from '../findings-from-runs.js';
 
 /**
  * Repeated timestamps: a fix with the same time as the fix before it is flagged; each run is a
@@ -21,6 +21,7 @@ export function checkRepeatedTimes(context: AuditContext): Finding[] {
   return findingsFromRuns(context, 'repeated-time', measured, {
     limit: 1,
     unit: 'fixes',
-    describe: (_worst, count) => `${fixCount(count)} repeat the timestamp of the fix before; a logger or clock glitch.`,
+    describe: (_worst, count) =>
+      `${fixesDo(count, 'repeats', 'repeat')} the timestamp of the fix before; a logger or clock glitch.`,
   });
 }

@@ -12,7 +12,8 @@ function median(values: number[]): number {
 
 /**
  * Surface unit drifting while the setup says it is stationary: each surface position is compared
- * with the median surface position; runs farther than `profile.surfaceDriftWarnM` are findings,
+ * with where the unit was set up (its median position over the log's first `profile.fixRateWindowS`
+ * seconds); runs farther than `profile.surfaceDriftWarnM` are findings,
  * `fail` when they reach `profile.surfaceDriftFailM`. No fix is flagged (the vehicle positions
  * follow the real surface position; a re-solve from a fixed surveyed position would not). An
  * `info` finding when the setup says stationary but the log has no surface positions.
@@ -37,10 +38,11 @@ export function checkSurfaceDrift(context: AuditContext): Finding[] {
       },
     ];
   }
+  // where it was set up: the median surface position over the first `fixRateWindowS` of the log
   const east: number[] = [];
   const north: number[] = [];
-  const stride = Math.max(1, Math.floor(n / 20000)); // a sample is plenty for a median
-  for (let i = 0; i < n; i += stride) {
+  const setupEndMs = (time[0] as number) + profile.fixRateWindowS * 1000;
+  for (let i = 0; i < n && (east.length < 3 || (time[i] as number) <= setupEndMs); i++) {
     const e = surfaceEastM[i] as number;
     if (Number.isNaN(e)) continue;
     east.push(e);
@@ -78,7 +80,7 @@ export function checkSurfaceDrift(context: AuditContext): Finding[] {
       finding.severity = 'fail';
       finding.limit = profile.surfaceDriftFailM;
     }
-    finding.message = `The surface unit, meant to be stationary, moved up to ${formatValue(finding.measured)} m from its usual position (limit ${formatValue(finding.limit)} m).`;
+    finding.message = `The surface unit, meant to be stationary, moved up to ${formatValue(finding.measured)} m from where it was set up (limit ${formatValue(finding.limit)} m).`;
   }
   return findings;
 }
