@@ -1,6 +1,7 @@
 import type { Command } from 'commander';
 import type { CliIo } from '../io.js';
 import { registerCompletion } from './completion.js';
+import { registerInspect } from './inspect.js';
 import { registerResolve } from './resolve.js';
 import { registerSimulate } from './simulate.js';
 
@@ -15,4 +16,4 @@ export interface CommandContext {
 export type RegisterCommand = (program: Command, context: CommandContext) => void;
 
 /** Every verb, in the order `leadline --help` lists them. Add a verb by adding its register function here. */
-export const COMMANDS: readonly RegisterCommand[] = [registerResolve, registerSimulate, registerCompletion];
+export const COMMANDS: readonly RegisterCommand[] = [registerInspect, registerResolve, registerSimulate, registerCompletion];
