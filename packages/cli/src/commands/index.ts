@@ -16,4 +16,9 @@ export interface CommandContext {
 export type RegisterCommand = (program: Command, context: CommandContext) => void;
 
 /** Every verb, in the order `leadline --help` lists them. Add a verb by adding its register function here. */
-export const COMMANDS: readonly RegisterCommand[] = [registerInspect, registerResolve, registerSimulate, registerCompletion];
+export const COMMANDS: readonly RegisterCommand[] = [
+  registerInspect,
+  registerResolve,
+  registerSimulate,
+  registerCompletion,
+];
