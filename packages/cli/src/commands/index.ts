@@ -1,6 +1,8 @@
 import type { Command } from 'commander';
 import type { CliIo } from '../io.js';
 import { registerCompletion } from './completion.js';
+import { registerConvert } from './convert.js';
+import { registerCrs } from './crs.js';
 import { registerInspect } from './inspect.js';
 import { registerResolve } from './resolve.js';
 import { registerSimulate } from './simulate.js';
@@ -18,7 +20,9 @@ export type RegisterCommand = (program: Command, context: CommandContext) => voi
 /** Every verb, in the order `leadline --help` lists them. Add a verb by adding its register function here. */
 export const COMMANDS: readonly RegisterCommand[] = [
   registerInspect,
+  registerConvert,
   registerResolve,
   registerSimulate,
+  registerCrs,
   registerCompletion,
 ];

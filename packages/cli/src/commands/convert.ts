@@ -1,0 +1,330 @@
+import { readFile } from 'node:fs/promises';
+import { resolve as resolvePath } from 'node:path';
+import {
+  type AuditProfile,
+  InvalidArgumentError as CoreInvalidArgumentError,
+  parseResolveSetup,
+  parseUserProfiles,
+  type ReadOptions,
+  resolveAuditProfile,
+  resolveCrs,
+} from '@leadline/core';
+import { Option } from 'commander';
+import { EXIT_IO, EXIT_OK, EXIT_USAGE } from '../exit-codes.js';
+import type { CliIo } from '../io.js';
+import {
+  addCommonOptions,
+  type CommonOptions,
+  ConfigFileError,
+  type InputFile,
+  loadConfig,
+  OutputFolder,
+  printJson,
+  readInputBytes,
+  resolveInputs,
+  runPool,
+  startProgress,
+  type WrittenOutput,
+} from '../support/index.js';
+import { createTaskPool } from '../support/task-pool.js';
+import {
+  CONVERT_FORMATS,
+  type ConvertCrsReport,
+  type ConvertFormat,
+  type ConvertTaskPayload,
+  type ConvertTaskResult,
+} from './convert-task.js';
+import type { RegisterCommand } from './index.js';
+
+export { CONVERT_FORMATS, type ConvertFormat } from './convert-task.js';
+
+const TASK_MODULE = new URL('./convert-task.ts', import.meta.url);
+
+/** The options of `leadline convert`. */
+export interface ConvertOptions extends CommonOptions {
+  to: ConvertFormat;
+  crs?: string;
+  clean?: boolean;
+  profile?: string;
+  setup?: string;
+}
+
+/** What `--json` prints for one input. */
+export interface ConvertFileReport {
+  file: string;
+  /** `false` when the input could not be read at all. */
+  ok: boolean;
+  error?: string;
+  /** The reader that read it (`gpx`, `csv`, ...). */
+  format: string | null;
+  to: ConvertFormat;
+  fixCount: number;
+  waypointCount: number;
+  rejectionCount: number;
+  rejections: Array<{ line: number; reason: string; message: string }>;
+  /** The CRS of the CSV's easting/northing columns, with method and accuracy; `null`: WGS 84 only. */
+  crs: ConvertCrsReport | null;
+  /** With `--clean`: fixes dropped per vehicle track because the audit flagged them. */
+  cleaned: Array<{ track: string; profile: string; droppedCount: number }>;
+  /** With `--setup`: the vehicle tracks re-solved before converting. */
+  resolvedTracks: string[];
+  outputs: WrittenOutput[];
+}
+
+const EXAMPLES = `
+Examples:
+  leadline convert dives/ --to geojson --out converted/
+  leadline convert "logs/**/*.csv" --to csv --crs utm --out converted/
+  leadline convert dive-07.gpx --to csv --crs EPSG:25832 > dive-07.csv
+  leadline convert dive-07.csv --to kml --clean --profile inspection-rov --out converted/
+  leadline convert grid-survey.csv --input-crs EPSG:27700 --to gpx --out converted/
+
+GPX, GeoJSON and KML are always WGS 84 longitude/latitude (their standards say so). CSV keeps
+lat/lon and, with --crs, adds easting_m/northing_m in that CRS (utm: the zone of the data's centre,
+kept for the whole file). A CRS whose datum grid is not bundled (EPSG:27700 without OSTN15) uses a
+documented Helmert shift and the report says so with its accuracy.
+
+With one input and no --out the converted file goes to standard output. --json prints an array with
+one object per input: file, ok, error, format, to, fixCount, waypointCount, rejectionCount,
+rejections (line, reason, message), crs (code, name, method, accuracyM, note, utmStraddles) or null,
+cleaned (track, profile, droppedCount), resolvedTracks and outputs (path, bytes, sha256).`;
+
+/** Registers `leadline convert`. */
+export const registerConvert: RegisterCommand = (program, context) => {
+  const command = program
+    .command('convert')
+    .description('convert logs to GPX, GeoJSON, CSV (in any CRS) or KML')
+    .argument('<inputs...>', 'log files, folders or globs; - reads standard input')
+    .addOption(new Option('--to <format>', 'output format').choices(CONVERT_FORMATS).makeOptionMandatory())
+    .option('--crs <code>', 'CSV only: also write easting/northing in EPSG:<code>, or utm for the data’s UTM zone')
+    .option('--clean', 'drop the fixes the audit flags before writing', false)
+    .option(
+      '--profile <name>',
+      'audit profile for --clean (default: defaults.profile in the config, else inspection-rov)',
+    )
+    .option(
+      '--setup <setup>',
+      're-solve vehicle tracks first with this setup: a JSON file, a config setup name, or inline JSON',
+    );
+  addCommonOptions(command).addHelpText('after', EXAMPLES);
+  command.action(async (inputs: string[], options: ConvertOptions) => {
+    context.exitCode = await runConvert(inputs, options, context.io);
+  });
+};
+
+class UsageProblem extends Error {}
+
+/**
+ * Runs `leadline convert` on `args` and returns the exit code: 0 when every input was converted
+ * (rejected rows alone do not change it), 2 for a usage problem (unknown CRS, profile or setup,
+ * several inputs without --out), 3 when an input could not be read or an output not written.
+ */
+export async function runConvert(
+  args: readonly string[],
+  options: ConvertOptions,
+  io: CliIo,
+  cwd: string = process.cwd(),
+): Promise<number> {
+  let setup: unknown;
+  let cleanProfile: ConvertTaskPayload['cleanProfile'];
+  let crs = options.crs;
+  try {
+    const { config } = await loadConfig(options.config, cwd);
+    crs ??= options.to === 'csv' ? config.defaults?.crs : undefined;
+    if (crs !== undefined && options.to !== 'csv')
+      throw new UsageProblem('--crs applies to --to csv only (GPX, GeoJSON and KML are always WGS 84)');
+    // Checked here so a bad CRS is a usage error before any file is read.
+    if (crs !== undefined && crs.toLowerCase() !== 'utm') resolveCrs(crs);
+    if (options.clean) {
+      const userProfiles: Record<string, AuditProfile> = parseUserProfiles(config.profiles);
+      const name = options.profile ?? config.defaults?.profile ?? 'inspection-rov';
+      resolveAuditProfile(name, userProfiles);
+      cleanProfile = { name, userProfiles };
+    } else if (options.profile !== undefined) throw new UsageProblem('--profile applies with --clean only');
+    if (options.setup !== undefined) setup = await loadSetup(options.setup, config.setups ?? {}, cwd);
+  } catch (error) {
+    if (
+      error instanceof UsageProblem ||
+      error instanceof CoreInvalidArgumentError ||
+      error instanceof ConfigFileError
+    ) {
+      io.stderr(`leadline convert: ${error.message}\n`);
+      return EXIT_USAGE;
+    }
+    throw error;
+  }
+
+  const { inputs, problems } = await resolveInputs(args, cwd);
+  for (const problem of problems) io.stderr(`leadline convert: ${problem}\n`);
+  if (options.out === undefined && inputs.length > 1) {
+    io.stderr(
+      `leadline convert: ${inputs.length} inputs need --out <dir> (standard output takes one converted file)\n`,
+    );
+    return EXIT_USAGE;
+  }
+  if (options.out === undefined && options.json) {
+    io.stderr(
+      'leadline convert: --json needs --out <dir> (without it the converted file itself goes to standard output)\n',
+    );
+    return EXIT_USAGE;
+  }
+  const out =
+    options.out === undefined
+      ? undefined
+      : new OutputFolder(resolvePath(cwd, options.out), { force: options.force, inputs });
+  const progress = startProgress(io, inputs.length, options);
+  const readOptions: ReadOptions = {
+    ...(options.as === undefined ? {} : { format: options.as as ReadOptions['format'] }),
+    ...(options.columns === undefined ? {} : { columns: options.columns as ReadOptions['columns'] }),
+    ...(options.tz === undefined ? {} : { timeZone: options.tz }),
+    ...(options.inputCrs === undefined ? {} : { inputCrs: options.inputCrs }),
+  };
+  const nowMs = Date.now();
+  const pool = createTaskPool(Math.min(options.jobs, Math.max(1, inputs.length)));
+  let stdoutText: string | undefined;
+  let results: Awaited<ReturnType<typeof runPool<InputFile, ConvertFileReport>>>;
+  try {
+    results = await runPool(
+      inputs,
+      options.jobs,
+      async (input) => {
+        const bytes = await readInputBytes(input);
+        out?.recordInput(input, bytes);
+        const payload: ConvertTaskPayload = {
+          displayName: input.displayName,
+          bytes,
+          readOptions,
+          to: options.to,
+          nowMs,
+          ...(crs === undefined ? {} : { crs }),
+          ...(cleanProfile === undefined ? {} : { cleanProfile }),
+          ...(setup === undefined ? {} : { setup }),
+        };
+        const result = await pool.run<ConvertTaskPayload, ConvertTaskResult>(TASK_MODULE, 'convertFileTask', payload);
+        const outputs: WrittenOutput[] = [];
+        if (result.ok) {
+          if (out !== undefined) outputs.push(await out.write(out.pathFor(input, result.extension), result.text));
+          else stdoutText = result.text;
+        }
+        return {
+          file: input.displayName,
+          ok: result.ok,
+          ...(result.error === undefined ? {} : { error: result.error }),
+          format: result.format ?? null,
+          to: options.to,
+          fixCount: result.fixCount,
+          waypointCount: result.waypointCount,
+          rejectionCount: result.rejections.length,
+          rejections: result.rejections,
+          crs: result.crs,
+          cleaned: result.cleaned,
+          resolvedTracks: result.resolvedTracks,
+          outputs,
+        };
+      },
+      (done) => progress.update(done),
+    );
+  } finally {
+    progress.stop();
+    await pool.destroy();
+  }
+
+  let exitCode = problems.length > 0 ? EXIT_IO : EXIT_OK;
+  const reports: ConvertFileReport[] = results.map((result, i) => {
+    const input = inputs[i] as InputFile;
+    if (result.ok) return result.value;
+    const message =
+      result.error instanceof Error ? result.error.message : `unexpected failure: ${String(result.error)}`;
+    return {
+      file: input.displayName,
+      ok: false,
+      error: message,
+      format: null,
+      to: options.to,
+      fixCount: 0,
+      waypointCount: 0,
+      rejectionCount: 0,
+      rejections: [],
+      crs: null,
+      cleaned: [],
+      resolvedTracks: [],
+      outputs: [],
+    };
+  });
+  for (const report of reports) {
+    if (!report.ok) {
+      exitCode = EXIT_IO;
+      io.stderr(`${report.file}: ${report.error ?? 'could not be converted'}\n`);
+    }
+    // Every rejected row is said, one line each (file, line, what was expected).
+    if (!options.json && report.ok) for (const r of report.rejections) io.stderr(`${r.message}\n`);
+  }
+  if (out !== undefined)
+    await out.writeManifest('convert', {
+      to: options.to,
+      crs: crs ?? null,
+      clean: cleanProfile?.name ?? null,
+      setup: setup ?? null,
+      read: readOptions,
+    });
+
+  if (out === undefined) {
+    if (stdoutText !== undefined) io.stdout(stdoutText);
+    if (!options.quiet) for (const r of reports) if (r.crs) io.stderr(`${r.file}: ${r.crs.note}\n`);
+  } else if (options.json) printJson(io, reports);
+  else if (!options.quiet) io.stdout(formatTable(reports));
+  return exitCode;
+}
+
+/** Reads a setup from inline JSON, a config setup name, or a file, and validates it. */
+async function loadSetup(text: string, named: Record<string, unknown>, cwd: string): Promise<unknown> {
+  let raw: unknown;
+  let where: string;
+  if (text.trimStart().startsWith('{')) {
+    where = 'the --setup JSON';
+    raw = parseJson(text, where);
+  } else if (Object.hasOwn(named, text)) {
+    where = `setup "${text}" in the config file`;
+    raw = named[text];
+  } else {
+    where = resolvePath(cwd, text);
+    let fileText: string;
+    try {
+      fileText = await readFile(where, 'utf8');
+    } catch {
+      throw new UsageProblem(`--setup ${text}: no such file and no setup by that name in the config file`);
+    }
+    raw = parseJson(fileText, where);
+  }
+  try {
+    return parseResolveSetup(raw);
+  } catch (error) {
+    throw new UsageProblem(`${where}: ${(error as Error).message}`);
+  }
+}
+
+function parseJson(text: string, where: string): unknown {
+  try {
+    return JSON.parse(text);
+  } catch (error) {
+    throw new UsageProblem(`${where}: not valid JSON (${(error as Error).message})`);
+  }
+}
+
+function formatTable(reports: readonly ConvertFileReport[]): string {
+  const lines = ['file\tformat\tfixes\trejected\tcrs\toutput'];
+  for (const r of reports) {
+    if (!r.ok) {
+      lines.push(`${r.file}\t-\t-\t-\t-\tnot read: ${r.error ?? ''}`);
+      continue;
+    }
+    const crs =
+      r.crs === null
+        ? 'WGS 84'
+        : `${r.crs.code}${r.crs.method === 'helmert-fallback' ? ` (Helmert, ±${r.crs.accuracyM} m)` : ''}`;
+    lines.push(
+      [r.file, r.format ?? '-', r.fixCount, r.rejectionCount, crs, r.outputs.map((o) => o.path).join(', ')].join('\t'),
+    );
+  }
+  return `${lines.join('\n')}\n`;
+}
