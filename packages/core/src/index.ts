@@ -7,6 +7,7 @@ export { compareSeverity, decideVerdict } from './audit/decide-verdict.js';
 export type { FixUncertainty, S44Share } from './audit/estimate-uncertainty.js';
 export { shareMeetingS44Orders } from './audit/estimate-uncertainty.js';
 export type { CheckName, Finding, Severity, Verdict } from './audit/finding.js';
+export { parseAuditSetup } from './audit/parse-audit-setup.js';
 export { AuditProfileSchema, parseUserProfiles } from './audit/parse-user-profiles.js';
 export { resolveAuditProfile } from './audit/resolve-audit-profile.js';
 export type { S44Order, S44OrderLimits } from './audit/s44-orders.js';

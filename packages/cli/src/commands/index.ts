@@ -1,11 +1,13 @@
 import type { Command } from 'commander';
 import type { CliIo } from '../io.js';
+import { registerAudit } from './audit.js';
 import { registerCompletion } from './completion.js';
 import { registerConvert } from './convert.js';
 import { registerCrs } from './crs.js';
 import { registerInspect } from './inspect.js';
 import { registerResolve } from './resolve.js';
 import { registerSimulate } from './simulate.js';
+import { registerSplit } from './split.js';
 
 /** What every verb's registration receives: where to write, and where to leave its exit code. */
 export interface CommandContext {
@@ -21,6 +23,8 @@ export type RegisterCommand = (program: Command, context: CommandContext) => voi
 export const COMMANDS: readonly RegisterCommand[] = [
   registerInspect,
   registerConvert,
+  registerAudit,
+  registerSplit,
   registerResolve,
   registerSimulate,
   registerCrs,

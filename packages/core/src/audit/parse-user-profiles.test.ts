@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { InvalidArgumentError } from '../errors.js';
 import { PRESET_PROFILES } from './audit-profile.js';
 import { AuditProfileSchema, parseUserProfiles } from './parse-user-profiles.js';
+import { parseAuditSetup } from './parse-audit-setup.js';
 import { resolveAuditProfile } from './resolve-audit-profile.js';
 
 describe('parseUserProfiles', () => {
@@ -57,5 +58,17 @@ describe('resolveAuditProfile', () => {
     expect(() => resolveAuditProfile('glider')).toThrow(
       /unknown profile "glider" \(valid: inspection-rov, work-rov, diver, towed-body\)/,
     );
+  });
+});
+
+describe('parseAuditSetup', () => {
+  it('accepts the audit setup keys and names a bad one', () => {
+    expect(parseAuditSetup({ surfaceStationary: true, transceiverDraftM: 1.2, uncertainty: { gnssHorizontal95M: 0.05 } })).toEqual({
+      surfaceStationary: true,
+      transceiverDraftM: 1.2,
+      uncertainty: { gnssHorizontal95M: 0.05 },
+    });
+    expect(() => parseAuditSetup({ transceiverDraftM: -1 })).toThrow(/transceiverDraftM/);
+    expect(() => parseAuditSetup({ draft: 1 })).toThrow(/draft/);
   });
 });

@@ -83,7 +83,7 @@ ${summary}
 </tbody></table>
 <h2>Track</h2>
 <div class="plots">
-<figure>${renderPlanSvg(plot)}<figcaption>Plan view in metres east and north of the first fix: vehicle track (blue), surface unit (grey, dashed), flagged fixes (red rings), start (green dot), end (black square).${thinned}</figcaption></figure>
+<figure>${renderPlanSvg(plot)}<figcaption>Plan view in metres east and north of the first fix: vehicle track (blue), surface unit (grey triangle and dashed line), flagged fixes (red rings), start (green dot), end (black square).${thinned}</figcaption></figure>
 <figure>${renderDepthSvg(plot)}<figcaption>Depth against time since the first fix; flagged fixes as red rings.</figcaption></figure>
 </div>
 <h2>Findings</h2>

@@ -57,6 +57,9 @@ export function renderPlanSvg(plot: ReportPlot): string {
   if (plan.surfaceEastM.length > 0) {
     const pts = plan.surfaceEastM.map((e, i) => `${f1(x(e))},${f1(y(plan.surfaceNorthM[i] as number))}`).join(' ');
     parts.push(`<polyline points="${pts}" fill="none" stroke="#8a8a8a" stroke-width="1" stroke-dasharray="3 2"/>`);
+    const sx = x(plan.surfaceEastM[0] as number);
+    const sy = y(plan.surfaceNorthM[0] as number);
+    parts.push(`<path d="M${f1(sx)} ${f1(sy - 7)}l6 11h-12z" fill="#8a8a8a"><title>surface unit</title></path>`);
   }
   if (plan.eastM.length > 0) {
     const pts = plan.eastM.map((e, i) => `${f1(x(e))},${f1(y(plan.northM[i] as number))}`).join(' ');
@@ -91,8 +94,9 @@ export function renderPlanSvg(plot: ReportPlot): string {
 export function renderDepthSvg(plot: ReportPlot): string {
   const { profile } = plot;
   const [t0, t1] = extent([profile.timeS, profile.flaggedTimeS]);
-  const [d0raw, d1] = extent([profile.depthM, profile.flaggedDepthM]);
+  const [d0raw, d1raw] = extent([profile.depthM, profile.flaggedDepthM]);
   const d0 = Math.min(0, d0raw);
+  const d1 = d1raw + Math.max(0.5, (d1raw - d0) * 0.05); // room below the deepest fix
   const h = 240;
   const x = (t: number) => PAD + ((t - t0) / (t1 - t0)) * (W - 2 * PAD);
   const y = (d: number) => 20 + ((d - d0) / (d1 - d0)) * (h - 50);

@@ -1,0 +1,211 @@
+import { resolve as resolvePath } from 'node:path';
+import {
+  InvalidArgumentError as CoreInvalidArgumentError,
+  parseUserProfiles,
+  type ReadOptions,
+  resolveAuditProfile,
+  type SplitOptions,
+} from '@leadline/core';
+import { InvalidArgumentError, Option } from 'commander';
+import { EXIT_IO, EXIT_OK, EXIT_USAGE } from '../exit-codes.js';
+import type { CliIo } from '../io.js';
+import {
+  addCommonOptions,
+  type CommonOptions,
+  ConfigFileError,
+  type InputFile,
+  loadConfig,
+  OutputFolder,
+  printJson,
+  readInputBytes,
+  resolveInputs,
+  runPool,
+  startProgress,
+  type WrittenOutput,
+} from '../support/index.js';
+import { createTaskPool } from '../support/task-pool.js';
+import type { RegisterCommand } from './index.js';
+import {
+  SPLIT_FORMATS,
+  type SplitFormat,
+  type SplitSpanReport,
+  type SplitTaskPayload,
+  type SplitTaskResult,
+} from './split-task.js';
+
+const TASK_MODULE = new URL('./split-task.ts', import.meta.url);
+
+/** The options of `leadline split`. */
+export interface SplitCliOptions extends CommonOptions {
+  gap?: number;
+  surfaceDepth?: number;
+  surfaceTime?: number;
+  profile?: string;
+  to: SplitFormat;
+}
+
+/** What `--json` prints for one input. */
+export interface SplitFileReport {
+  file: string;
+  ok: boolean;
+  error?: string;
+  fixCount: number;
+  dives: SplitSpanReport[];
+  surfaceIntervals: SplitSpanReport[];
+  readRejections: Array<{ line: number; reason: string; message: string }>;
+  outputs: WrittenOutput[];
+}
+
+const EXAMPLES = `
+Examples:
+  leadline split day-log.csv
+  leadline split "logs/*.csv" --gap 600 --out dives/
+  leadline split boat-day.gpx --surface-depth 2 --surface-time 180 --to gpx --out dives/ --json
+
+A dive ends at a gap longer than --gap seconds or at a stay shallower than --surface-depth metres
+lasting --surface-time seconds or more (defaults from --profile: 900 s, 1 m, 300 s). Every fix
+lands in exactly one dive or one surface interval; nothing is dropped. With --out each dive is
+written as <name>.dive-NN.<format>.
+
+--json prints an array with one object per input: file, ok, error (when not read), fixCount, dives
+and surfaceIntervals (track, number, startIndex, endIndex, fixCount, startTime, endTime),
+readRejections (line, reason, message) and outputs.`;
+
+function positiveNumber(text: string): number {
+  const value = Number(text);
+  if (!Number.isFinite(value) || value <= 0) throw new InvalidArgumentError(`expected a number > 0, got "${text}"`);
+  return value;
+}
+
+/** Registers `leadline split`. */
+export const registerSplit: RegisterCommand = (program, context) => {
+  const command = program
+    .command('split')
+    .description('split logs into dives at long gaps and long stays at the surface')
+    .argument('<inputs...>', 'log files, folders or globs; - reads standard input')
+    .option('--gap <seconds>', 'a gap longer than this ends a dive', positiveNumber)
+    .option('--surface-depth <metres>', 'shallower than this is at the surface', positiveNumber)
+    .option('--surface-time <seconds>', 'a surface stay this long ends a dive', positiveNumber)
+    .option('--profile <name>', 'take the defaults from this audit profile')
+    .addOption(
+      new Option('--to <format>', 'format of the dive files written under --out').choices(SPLIT_FORMATS).default('csv'),
+    );
+  addCommonOptions(command).addHelpText('after', EXAMPLES);
+  command.action(async (inputs: string[], options: SplitCliOptions) => {
+    context.exitCode = await runSplit(inputs, options, context.io);
+  });
+};
+
+/**
+ * Runs `leadline split` and returns the exit code: 0 when every input was split, 2 for a usage
+ * problem (unknown profile, bad config), 3 when an input could not be read or an output written.
+ */
+export async function runSplit(
+  args: readonly string[],
+  options: SplitCliOptions,
+  io: CliIo,
+  cwd: string = process.cwd(),
+): Promise<number> {
+  let split: SplitOptions;
+  try {
+    const { config } = await loadConfig(options.config, cwd);
+    const profile = resolveAuditProfile(
+      options.profile ?? config.defaults?.profile ?? 'inspection-rov',
+      parseUserProfiles(config.profiles ?? {}),
+    );
+    split = {
+      splitGapS: options.gap ?? profile.splitGapS,
+      surfaceDepthM: options.surfaceDepth ?? profile.surfaceDepthM,
+      surfaceIntervalS: options.surfaceTime ?? profile.surfaceIntervalS,
+    };
+  } catch (error) {
+    if (error instanceof CoreInvalidArgumentError || error instanceof ConfigFileError) {
+      io.stderr(`leadline split: ${error.message}\n`);
+      return EXIT_USAGE;
+    }
+    throw error;
+  }
+  const { inputs, problems } = await resolveInputs(args, cwd);
+  for (const problem of problems) io.stderr(`leadline split: ${problem}\n`);
+  const out =
+    options.out === undefined
+      ? undefined
+      : new OutputFolder(resolvePath(cwd, options.out), { force: options.force, inputs });
+  const readOptions: ReadOptions = {
+    ...(options.as === undefined ? {} : { format: options.as as ReadOptions['format'] }),
+    ...(options.columns === undefined ? {} : { columns: options.columns as ReadOptions['columns'] }),
+    ...(options.tz === undefined ? {} : { timeZone: options.tz }),
+    ...(options.inputCrs === undefined ? {} : { inputCrs: options.inputCrs }),
+  };
+  const progress = startProgress(io, inputs.length, options);
+  const pool = createTaskPool(Math.min(options.jobs, inputs.length));
+  let results: Awaited<ReturnType<typeof runPool<InputFile, SplitFileReport>>>;
+  try {
+    results = await runPool(
+      inputs,
+      options.jobs,
+      async (input) => {
+        const bytes = await readInputBytes(input);
+        out?.recordInput(input, bytes);
+        const payload: SplitTaskPayload = {
+          displayName: input.displayName,
+          bytes,
+          readOptions,
+          split,
+          to: options.to,
+          withFiles: out !== undefined,
+        };
+        const result = await pool.run<SplitTaskPayload, SplitTaskResult>(TASK_MODULE, 'splitFileTask', payload);
+        const outputs: WrittenOutput[] = [];
+        if (out !== undefined && result.ok)
+          for (const file of result.files)
+            outputs.push(await out.write(out.pathFor(input, file.extension, file.suffix), file.text));
+        const { files: _files, ...rest } = result;
+        return { file: input.displayName, ...rest, outputs };
+      },
+      (done) => progress.update(done),
+    );
+  } finally {
+    progress.stop();
+    await pool.destroy();
+  }
+  let exitCode = problems.length > 0 ? EXIT_IO : EXIT_OK;
+  const reports: SplitFileReport[] = results.map((result, i) => {
+    if (result.ok) return result.value;
+    const input = inputs[i] as InputFile;
+    const message =
+      result.error instanceof Error ? result.error.message : `unexpected failure: ${String(result.error)}`;
+    return {
+      file: input.displayName,
+      ok: false,
+      error: message,
+      fixCount: 0,
+      dives: [],
+      surfaceIntervals: [],
+      readRejections: [],
+      outputs: [],
+    };
+  });
+  for (const report of reports)
+    if (!report.ok) {
+      exitCode = EXIT_IO;
+      io.stderr(`${report.file}: ${report.error ?? 'could not be split'}\n`);
+    }
+  if (out !== undefined) await out.writeManifest('split', { split, to: options.to, read: readOptions });
+  if (options.json) printJson(io, reports);
+  else if (!options.quiet) {
+    const lines = ['file\tdive\tfixes\tstart (UTC)\tend (UTC)'];
+    for (const r of reports) {
+      if (!r.ok) {
+        lines.push(`${r.file}\t-\t-\t-\tnot read: ${r.error ?? ''}`);
+        continue;
+      }
+      for (const d of r.dives)
+        lines.push(`${r.file}\t${d.track}\t${d.fixCount}\t${d.startTime ?? '-'}\t${d.endTime ?? '-'}`);
+      const surface = r.surfaceIntervals.reduce((sum, s) => sum + s.fixCount, 0);
+      lines.push(`${r.file}\t(surface)\t${surface}\t${r.surfaceIntervals.length} interval(s)\t`);
+    }
+    io.stdout(`${lines.join('\n')}\n`);
+  }
+  return exitCode;
+}
