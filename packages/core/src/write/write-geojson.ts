@@ -121,40 +121,80 @@ function trackFeature(track: Track, decimals: number): object | undefined {
   };
 }
 
+// Keeps the part of a ring (longitudes unwrapped, so continuous) on one side of a meridian
+// (Sutherland–Hodgman against one half-plane); the cut edge lies on the meridian itself.
+function clipRing(ring: number[][], meridian: number, keepWest: boolean): number[][] {
+  const inside = (p: number[]) => (keepWest ? (p[0] as number) <= meridian : (p[0] as number) >= meridian);
+  const out: number[][] = [];
+  for (let i = 0; i + 1 < ring.length; i++) {
+    const a = ring[i] as number[];
+    const b = ring[i + 1] as number[];
+    if (inside(a)) out.push(a);
+    if (inside(a) !== inside(b)) {
+      const w = (meridian - (a[0] as number)) / ((b[0] as number) - (a[0] as number));
+      out.push([meridian, (a[1] as number) + w * ((b[1] as number) - (a[1] as number))]);
+    }
+  }
+  const first = out[0];
+  if (first) out.push([...first]);
+  return out;
+}
+
+// Shoelace sign: positive = counter-clockwise in lon/lat (RFC 7946 §3.1.6 right-hand rule for exteriors).
+function ringTwiceArea(ring: number[][]): number {
+  let twice = 0;
+  for (let i = 0; i + 1 < ring.length; i++)
+    twice +=
+      ((ring[i] as number[])[0] as number) * ((ring[i + 1] as number[])[1] as number) -
+      ((ring[i + 1] as number[])[0] as number) * ((ring[i] as number[])[1] as number);
+  return twice;
+}
+
 function areaFeature(area: GeoJsonArea, decimals: number): object | undefined {
   const ring: number[][] = [];
   const n = Math.min(area.latDeg.length, area.lonDeg.length);
   for (let i = 0; i < n; i++) {
     const lat = area.latDeg[i] as number;
     const lon = area.lonDeg[i] as number;
-    if (Number.isFinite(lat) && Number.isFinite(lon))
-      ring.push([round(wrapLongitude(lon), decimals), round(lat, decimals)]);
+    if (!Number.isFinite(lat) || !Number.isFinite(lon)) continue;
+    // Unwrap longitudes along the ring so an edge never jumps by more than 180°.
+    const prev = ring[ring.length - 1]?.[0];
+    let x = wrapLongitude(lon);
+    if (prev !== undefined) {
+      while (x - prev > 180) x -= 360;
+      while (x - prev < -180) x += 360;
+    }
+    ring.push([x, lat]);
   }
   const first = ring[0];
   const last = ring[ring.length - 1];
   if (first && last && (first[0] !== last[0] || first[1] !== last[1])) ring.push([...first]);
   if (ring.length < 4) return undefined;
-  // Shoelace sign on longitudes unwrapped along the ring: positive = counter-clockwise (RFC 7946 §3.1.6).
-  let twiceArea = 0;
-  let lonPrev = (ring[0] as number[])[0] as number;
-  const unwrapped: number[] = [lonPrev];
-  for (let i = 1; i < ring.length; i++) {
-    let lon = (ring[i] as number[])[0] as number;
-    while (lon - lonPrev > 180) lon -= 360;
-    while (lon - lonPrev < -180) lon += 360;
-    unwrapped.push(lon);
-    lonPrev = lon;
-  }
-  for (let i = 0; i + 1 < ring.length; i++)
-    twiceArea +=
-      (unwrapped[i] as number) * ((ring[i + 1] as number[])[1] as number) -
-      (unwrapped[i + 1] as number) * ((ring[i] as number[])[1] as number);
-  if (twiceArea < 0) ring.reverse();
-  return {
-    type: 'Feature',
-    properties: { name: area.name, kind: 'area' },
-    geometry: { type: 'Polygon', coordinates: [ring] },
-  };
+  const xs = ring.map((p) => p[0] as number);
+  const west = Math.min(...xs);
+  const east = Math.max(...xs);
+  // A ring reaching past ±180° is cut there into two polygons (RFC 7946 §3.1.9).
+  const meridian = east > 180 ? 180 : west < -180 ? -180 : undefined;
+  const parts =
+    meridian === undefined
+      ? [ring]
+      : [clipRing(ring, meridian, true), clipRing(ring, meridian, false)].filter((r) => r.length >= 4);
+  const polygons = parts.map((part) => {
+    const shifted = part.map((p) => {
+      let x = p[0] as number;
+      // The half beyond the antimeridian moves back into [-180, 180]; the cut edge keeps ±180.
+      if (x > 180 || (meridian === 180 && x === 180 && part.some((q) => (q[0] as number) > 180))) x -= 360;
+      if (x < -180 || (meridian === -180 && x === -180 && part.some((q) => (q[0] as number) < -180))) x += 360;
+      return [round(x, decimals), round(p[1] as number, decimals)];
+    });
+    if (ringTwiceArea(shifted) < 0) shifted.reverse();
+    return [shifted];
+  });
+  const geometry =
+    polygons.length === 1
+      ? { type: 'Polygon', coordinates: polygons[0] }
+      : { type: 'MultiPolygon', coordinates: polygons };
+  return { type: 'Feature', properties: { name: area.name, kind: 'area' }, geometry };
 }
 
 /**
@@ -163,7 +203,8 @@ function areaFeature(area: GeoJsonArea, decimals: number): object | undefined {
  * height above the ellipsoid), rounded to 7 decimals by default; one Feature per track (a
  * MultiLineString when it has several segments or crosses the antimeridian, which it is cut at),
  * with per-position `times` (ISO 8601 UTC) and `depthsM` arrays in `properties`; waypoints as
- * Points with `depthM` and `time`; areas as Polygons wound counter-clockwise (right-hand rule);
+ * Points with `depthM` and `time`; areas as Polygons wound counter-clockwise (right-hand rule), cut
+ * into a MultiPolygon at the antimeridian;
  * `bbox` `[west, south, east, north]` with west > east across the antimeridian. Fixes without a
  * position are left out. Serve it as `application/geo+json`.
  */

@@ -133,8 +133,12 @@ function checkGeoJson(text: string, decimals: number): void {
         expect(f.properties.times[k]).toHaveLength(line.length);
         expect(f.properties.depthsM[k]).toHaveLength(line.length);
       });
-    if (g.type === 'Polygon') {
-      const ring: number[][] = g.coordinates[0];
+    const polygons: number[][][][] =
+      g.type === 'Polygon' ? [g.coordinates] : g.type === 'MultiPolygon' ? g.coordinates : [];
+    for (const polygon of polygons) {
+      const ring: number[][] = polygon[0] as number[][];
+      for (let i = 1; i < ring.length; i++)
+        expect(Math.abs((ring[i]?.[0] as number) - (ring[i - 1]?.[0] as number))).toBeLessThanOrEqual(180); // §3.1.9 cut
       expect(ring.length).toBeGreaterThanOrEqual(4); // §3.1.6
       expect(ring[0]).toEqual(ring[ring.length - 1]);
       let twice = 0;
@@ -152,7 +156,7 @@ function checkGeoJson(text: string, decimals: number): void {
     }
     if (g.type === 'Point') positions.push(g.coordinates);
     for (const line of lines) positions.push(...line);
-    if (g.type === 'Polygon') positions.push(...g.coordinates[0]);
+    for (const polygon of polygons) positions.push(...(polygon[0] as number[][]));
   }
   for (const p of positions) {
     expect(p).toHaveLength(2); // lon, lat only: depth is in properties
