@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { InvalidArgumentError } from '../errors.js';
 import { PRESET_PROFILES } from './audit-profile.js';
-import { AuditProfileSchema, parseUserProfiles } from './parse-user-profiles.js';
 import { parseAuditSetup } from './parse-audit-setup.js';
+import { AuditProfileSchema, parseUserProfiles } from './parse-user-profiles.js';
 import { resolveAuditProfile } from './resolve-audit-profile.js';
 
 describe('parseUserProfiles', () => {
@@ -63,7 +63,9 @@ describe('resolveAuditProfile', () => {
 
 describe('parseAuditSetup', () => {
   it('accepts the audit setup keys and names a bad one', () => {
-    expect(parseAuditSetup({ surfaceStationary: true, transceiverDraftM: 1.2, uncertainty: { gnssHorizontal95M: 0.05 } })).toEqual({
+    expect(
+      parseAuditSetup({ surfaceStationary: true, transceiverDraftM: 1.2, uncertainty: { gnssHorizontal95M: 0.05 } }),
+    ).toEqual({
       surfaceStationary: true,
       transceiverDraftM: 1.2,
       uncertainty: { gnssHorizontal95M: 0.05 },

@@ -14,18 +14,49 @@ export function neighbourMedian(values: Float64Array, halfWidth: number, out: Fl
   const scratch = new Float64Array(2 * halfWidth);
   for (let i = 0; i < n; i++) {
     if (halfWidth === 4 && i >= 4 && i + 4 < n) {
-      const m = medianOfEight(
-        values[i - 4] as number,
-        values[i - 3] as number,
-        values[i - 2] as number,
-        values[i - 1] as number,
-        values[i + 1] as number,
-        values[i + 2] as number,
-        values[i + 3] as number,
-        values[i + 4] as number,
-      );
-      if (!Number.isNaN(m)) {
-        out[i] = m;
+      // the body of medianOfEight, inlined: a call per fix costs as much as the network itself
+      let a0 = values[i - 4] as number;
+      let a1 = values[i - 3] as number;
+      let a2 = values[i - 2] as number;
+      let a3 = values[i - 1] as number;
+      let a4 = values[i + 1] as number;
+      let a5 = values[i + 2] as number;
+      let a6 = values[i + 3] as number;
+      let a7 = values[i + 4] as number;
+      if (!Number.isNaN(a0 + a1 + a2 + a3 + a4 + a5 + a6 + a7)) {
+        let t = Math.min(a0, a1);
+        a1 = Math.max(a0, a1);
+        a0 = t;
+        t = Math.min(a2, a3);
+        a3 = Math.max(a2, a3);
+        a2 = t;
+        t = Math.min(a4, a5);
+        a5 = Math.max(a4, a5);
+        a4 = t;
+        t = Math.min(a6, a7);
+        a7 = Math.max(a6, a7);
+        a6 = t;
+        t = Math.min(a0, a2);
+        a2 = Math.max(a0, a2);
+        a0 = t;
+        t = Math.min(a1, a3);
+        a3 = Math.max(a1, a3);
+        a1 = t;
+        t = Math.min(a4, a6);
+        a6 = Math.max(a4, a6);
+        a4 = t;
+        t = Math.min(a5, a7);
+        a7 = Math.max(a5, a7);
+        a5 = t;
+        t = Math.min(a1, a2);
+        a2 = Math.max(a1, a2);
+        a1 = t;
+        t = Math.min(a5, a6);
+        a6 = Math.max(a5, a6);
+        a5 = t;
+        const lower = Math.max(Math.min(a0, a7), Math.min(a1, a6), Math.min(a2, a5), Math.min(a3, a4));
+        const upper = Math.min(Math.max(a0, a7), Math.max(a1, a6), Math.max(a2, a5), Math.max(a3, a4));
+        out[i] = (lower + upper) / 2;
         continue;
       }
     }
