@@ -111,8 +111,15 @@ describe('dive page (preview) in headless Chromium', () => {
     mkdirSync(SCREENSHOTS, { recursive: true });
     await page.screenshot({ path: join(SCREENSHOTS, 'dive-page.png'), fullPage: true });
 
+    const marks = await page.evaluate(() =>
+      Object.fromEntries(performance.getEntriesByType('mark').map((mark) => [mark.name, mark.startTime])),
+    );
+    const since = (from: string, to: string) => ((marks[to] ?? Number.NaN) - (marks[from] ?? Number.NaN)).toFixed(0);
     console.log(
-      `dive page, 50 000 fixes: first drawing ${readyMs.toFixed(0)} ms after navigation start; wheel zoom redrawn within ${wheelMs.toFixed(0)} ms; ${drawn} vertices stroked after decimation`,
+      `dive page, 50 000 fixes: first drawing ${readyMs.toFixed(0)} ms after navigation start ` +
+        `(simulating the dive in the browser ${since('leadline:preview-simulate-start', 'leadline:preview-simulate-end')} ms, ` +
+        `data in hand to track drawn ${since('leadline:prepare-start', 'leadline:plan-first-draw')} ms); ` +
+        `wheel zoom redrawn within ${wheelMs.toFixed(0)} ms; ${drawn} vertices stroked after decimation`,
     );
     expect(pageErrors).toEqual([]);
     expect(requested.filter((url) => !url.startsWith(web.baseUrl) && !url.startsWith('data:'))).toEqual([]);

@@ -50,17 +50,17 @@ export function PlanView({ data, colourMode, grid, highlight, cursorIndex, descr
   const size = useElementSize(containerRef, { width: 640, height: 420 });
   const [view, setView] = useState<PlanViewState>(() => fitView(data.bounds, size.width, size.height));
   const [stats, setStats] = useState<PlanDrawStats | undefined>(undefined);
-  const fittedFor = useRef<{ data: PlotData; width: number; height: number } | undefined>(undefined);
+  const fittedFor = useRef<{ data: PlotData; measured: boolean } | undefined>(undefined);
   const helpId = useId();
   const drawnFor = useRef<PlotData | undefined>(undefined);
 
   // Fit to the dive when the data arrive or the first real size is known.
   useEffect(() => {
     const last = fittedFor.current;
-    if (last && last.data === data && last.width > 0) return;
-    fittedFor.current = { data, width: size.width, height: size.height };
+    if (last && last.data === data && (last.measured || !size.measured)) return;
+    fittedFor.current = { data, measured: size.measured };
     setView(fitView(data.bounds, size.width, size.height));
-  }, [data, size.width, size.height]);
+  }, [data, size.width, size.height, size.measured]);
 
   // Bring a newly chosen span into view.
   const highlightStart = highlight?.[0];

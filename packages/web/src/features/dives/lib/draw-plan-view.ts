@@ -263,7 +263,7 @@ export function drawPlanView(ctx: CanvasRenderingContext2D, d: PlanDrawing): Pla
       ctx.fillStyle = PLOT_COLOURS.highlightHalo;
       ctx.beginPath();
       const only = span.find((i) => i >= 0) ?? start;
-      ctx.arc(sx(data.eastM[only] as number), sy(data.northM[only] as number), 9, 0, Math.PI * 2);
+      ctx.arc(sx(data.eastM[only] as number), sy(data.northM[only] as number), 15, 0, Math.PI * 2);
       ctx.fill();
     }
     ctx.strokeStyle = PLOT_COLOURS.highlightLine;

@@ -1,8 +1,11 @@
 import { type RefObject, useLayoutEffect, useState } from 'react';
 
 /** The CSS size of an element, following resizes (a fixed fallback where ResizeObserver is missing, e.g. jsdom). */
-export function useElementSize(ref: RefObject<HTMLElement | null>, fallback: { width: number; height: number }) {
-  const [size, setSize] = useState(fallback);
+export function useElementSize(
+  ref: RefObject<HTMLElement | null>,
+  fallback: { width: number; height: number },
+): { width: number; height: number; measured: boolean } {
+  const [size, setSize] = useState({ ...fallback, measured: false });
   useLayoutEffect(() => {
     const element = ref.current;
     if (element === null || typeof ResizeObserver === 'undefined') return;
@@ -12,7 +15,7 @@ export function useElementSize(ref: RefObject<HTMLElement | null>, fallback: { w
         setSize((old) =>
           old.width === Math.round(rect.width) && old.height === Math.round(rect.height)
             ? old
-            : { width: Math.round(rect.width), height: Math.round(rect.height) },
+            : { width: Math.round(rect.width), height: Math.round(rect.height), measured: true },
         );
     };
     measure();

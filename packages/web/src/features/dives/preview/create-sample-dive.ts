@@ -194,8 +194,9 @@ export function createSampleDive({ fixCount, seed }: SampleDiveOptions): DiveVie
     surfaceLat[k] = p.latDeg;
     surfaceLon[k] = p.lonDeg;
   }
+  // Only checks that judge single fixes flag them; a gap or a drifting surface unit does not make the fixes suspect.
   const severity = new Uint8Array(n);
-  for (const f of findings)
+  for (const f of findings.filter((x) => x.check === 'position-jump' || x.check === 'depth-jump'))
     for (let i = f.startIndex; i <= f.endIndex; i++)
       severity[i] = Math.max(severity[i] as number, SEVERITY_CODE[f.severity]);
 
