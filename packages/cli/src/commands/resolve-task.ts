@@ -1,4 +1,5 @@
 import {
+  type AuditProfile,
   chooseUtmZone,
   formatRejection,
   formatResolveResult,
@@ -25,6 +26,8 @@ export interface ResolveTaskPayload {
   displayName: string;
   bytes: Uint8Array;
   setup: ResolveSetup;
+  /** The audit profile for the verdicts before and after. */
+  auditProfile: AuditProfile;
   readOptions: ReadOptions;
   to: ResolveFormat;
   /** `EPSG:<code>`, `utm`, or undefined. Checked by the caller before any task runs. */
@@ -74,7 +77,10 @@ export function resolveFileTask(payload: ResolveTaskPayload): ResolveTaskResult 
     };
   const surfaceTrack = surfaces[0];
   const results = vehicles.map((track) =>
-    resolveTrack(track, payload.setup, surfaceTrack === undefined ? {} : { surfaceTrack }),
+    resolveTrack(track, payload.setup, {
+      auditProfile: payload.auditProfile,
+      ...(surfaceTrack === undefined ? {} : { surfaceTrack }),
+    }),
   );
   const files: ResolveTaskFile[] = [];
   if (payload.withFiles) {

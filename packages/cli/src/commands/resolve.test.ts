@@ -130,6 +130,15 @@ describe('runResolve', () => {
     expect(code).toBe(0);
     const reports = JSON.parse(io.out()) as ResolveFileReport[];
     expect(reports[0]?.tracks[0]?.setup.surfacePosition).toMatchObject({ method: 'fixed', latDeg: 59.9021 });
+    expect(reports[0]?.tracks[0]?.audit.profile).toBe('inspection-rov');
+    const diver = capture();
+    await runResolve(
+      ['quay-fixed-position.csv'],
+      { ...baseOptions, setup: 'quay-q3', config, profile: 'diver' },
+      diver,
+      IN,
+    );
+    expect((JSON.parse(diver.out()) as ResolveFileReport[])[0]?.tracks[0]?.audit.profile).toBe('diver');
     const unknown = capture();
     expect(await runResolve(['quay-fixed-position.csv'], { ...baseOptions, setup: 'pen-9', config }, unknown, IN)).toBe(
       2,
@@ -164,6 +173,16 @@ describe('runResolve', () => {
     const missing = capture();
     expect(await runResolve(['quay-fixed-position.csv'], { ...baseOptions, setup: 'nope.json' }, missing, IN)).toBe(2);
     expect(missing.err()).toContain('nope.json: no such file');
+    const profile = capture();
+    expect(
+      await runResolve(
+        ['quay-fixed-position.csv'],
+        { ...baseOptions, setup: '{"soundSpeed":{"loggedMps":1500}}', profile: 'submarine' },
+        profile,
+        IN,
+      ),
+    ).toBe(2);
+    expect(profile.err()).toContain('inspection-rov');
     const crs = capture();
     const setup = JSON.stringify(setupOf('quay-fixed-position'));
     expect(await runResolve(['quay-fixed-position.csv'], { ...baseOptions, setup, crs: 'EPSG:25832' }, crs, IN)).toBe(

@@ -1,11 +1,14 @@
 import { readFile } from 'node:fs/promises';
 import { resolve as resolvePath } from 'node:path';
 import {
+  type AuditProfile,
   InvalidArgumentError as CoreInvalidArgumentError,
   parseResolveSetup,
+  parseUserProfiles,
   type ReadOptions,
   type ResolveReport,
   type ResolveSetup,
+  resolveAuditProfile,
   resolveCrs,
 } from '@leadline/core';
 import { Option } from 'commander';
@@ -44,6 +47,8 @@ export interface ResolveOptions extends CommonOptions {
   setup?: string;
   to: ResolveFormat;
   crs?: string;
+  /** Audit profile for the logged and re-solved verdicts. */
+  profile?: string;
 }
 
 /** What `--json` prints for one input. */
@@ -90,7 +95,11 @@ export const registerResolve: RegisterCommand = (program, context) => {
     .addOption(
       new Option('--to <format>', 'format of the re-solved tracks').choices(RESOLVE_FORMATS).default('geojson'),
     )
-    .option('--crs <code>', 'also write projected coordinates in CSV output: EPSG:<code> or utm');
+    .option('--crs <code>', 'also write projected coordinates in CSV output: EPSG:<code> or utm')
+    .option(
+      '--profile <name>',
+      'audit profile for the verdicts before and after (inspection-rov, work-rov, diver, towed-body, or from the config file)',
+    );
   addCommonOptions(command).addHelpText('after', EXAMPLES);
   command.action(async (inputs: string[], options: ResolveOptions) => {
     context.exitCode = await runResolve(inputs, options, context.io);
@@ -109,6 +118,7 @@ export async function runResolve(
   cwd: string = process.cwd(),
 ): Promise<number> {
   let setup: ResolveSetup;
+  let auditProfile: AuditProfile;
 
   try {
     const { config } = await loadConfig(options.config, cwd);
@@ -116,6 +126,10 @@ export async function runResolve(
     if (setupText === undefined)
       throw new UsageProblem('resolve needs --setup <file|name|JSON> (or defaults.setup in the config file)');
     setup = await loadSetup(setupText, config.setups ?? {}, cwd);
+    auditProfile = resolveAuditProfile(
+      options.profile ?? config.defaults?.profile ?? 'inspection-rov',
+      parseUserProfiles(config.profiles ?? {}),
+    );
     // Checked here so a bad CRS is a usage error before any file is read.
     if (options.crs !== undefined && options.crs.toLowerCase() !== 'utm') resolveCrs(options.crs);
     if (options.crs !== undefined && options.to !== 'csv')
@@ -158,6 +172,7 @@ export async function runResolve(
           displayName: input.displayName,
           bytes,
           setup,
+          auditProfile,
           readOptions,
           to: options.to,
           ...(options.crs === undefined ? {} : { crs: options.crs }),
@@ -199,7 +214,13 @@ export async function runResolve(
     }
   }
   if (out !== undefined)
-    await out.writeManifest('resolve', { setup, to: options.to, crs: options.crs ?? null, read: readOptions });
+    await out.writeManifest('resolve', {
+      setup,
+      profile: auditProfile.name,
+      to: options.to,
+      crs: options.crs ?? null,
+      read: readOptions,
+    });
 
   if (options.json) printJson(io, reports);
   else if (!options.quiet) io.stdout(formatTable(reports));
