@@ -163,8 +163,9 @@ describe('createProjectRoutes', () => {
       .expect(422);
     expect(response.body.results.map((r: { error: { code: string } }) => r.error.code)).toEqual([
       'empty-file',
-      'unknown-format',
+      'binary-content',
     ]);
+    expect(response.body.results[1].error.message).toMatch(/^garbage\.bin:1: binary-content: expected /);
     await editor
       .post(`/api/v1/organisations/${organisationId}/projects/${projectId}/logs`)
       .set(...SAME)
@@ -185,6 +186,11 @@ describe('createProjectRoutes', () => {
       else formats.add(result.log.detectedFormat);
     }
     expect([...formats].sort()).toEqual(['csv', 'geojson', 'gpx', 'kml', 'nmea']);
+    // The hostile XML of the readers' list is answered with a reason and not archived.
+    const byName = new Map(response.body.results.map((r: { fileName: string }) => [r.fileName, r]));
+    for (const hostile of ['gpx-billion-laughs.gpx', 'gpx-external-entity.gpx'])
+      expect(byName.get(hostile)).toMatchObject({ status: 'rejected', error: { code: 'forbidden-xml-construct' } });
+    expect(byName.get('binary-garbage.bin')).toMatchObject({ status: 'rejected' });
   });
 
   it('loses none of 50 concurrent uploads, and stores one log for 10 concurrent copies of one file', async () => {

@@ -1,5 +1,13 @@
 import { createHash } from 'node:crypto';
-import { detectFormat, parseCrsCode, resolveCrs } from '@leadline/core';
+import {
+  detectFormat,
+  formatRejection,
+  type LogFormat,
+  parseCrsCode,
+  type RejectionCode,
+  readLog,
+  resolveCrs,
+} from '@leadline/core';
 import { AppError } from '../http/errors.js';
 import type { ActivityStore } from '../stores/activity-store.js';
 import type { LogRecord, LogStore } from '../stores/log-store.js';
@@ -107,6 +115,36 @@ export async function deleteProject(
   });
 }
 
+/** Reasons the readers give for refusing a file as a whole (hostile or unreadable); such a file is not archived. */
+const WHOLE_FILE_CODES: ReadonlySet<RejectionCode> = new Set([
+  'empty-file',
+  'binary-content',
+  'unsupported-encoding',
+  'unknown-format',
+  'malformed-xml',
+  'forbidden-xml-construct',
+]);
+
+/** The readers' whole-file refusal of an upload, if any; row-level problems are left to processing. */
+function refuseWholeFile(file: {
+  fileName: string;
+  content: Uint8Array;
+}): { code: string; message: string } | undefined {
+  if (file.content.byteLength === 0) return { code: 'empty-file', message: `${file.fileName}: the file is empty.` };
+  const format: LogFormat | undefined = detectFormat({ fileName: file.fileName, content: file.content });
+  let result: ReturnType<typeof readLog>;
+  try {
+    result = readLog({ fileName: file.fileName, content: file.content }, format === undefined ? {} : { format });
+  } catch {
+    // A reader that throws is a bug, not the file's fault: archive it; processing will report the failure.
+    return undefined;
+  }
+  const [first] = result.rejections;
+  if (result.tracks.length > 0 || result.waypoints.length > 0 || first === undefined) return undefined;
+  if (!WHOLE_FILE_CODES.has(first.code) || result.rejections.length !== 1) return undefined;
+  return { code: first.code, message: formatRejection(first) };
+}
+
 /** The outcome of one uploaded file. */
 export type UploadResult =
   | { fileName: string; status: 'created' | 'existing'; log: LogRecord }
@@ -129,26 +167,12 @@ export async function uploadLogs(
   await getProject(deps, input.organisationId, input.projectId);
   const results: UploadResult[] = [];
   for (const file of input.files) {
-    if (file.content.byteLength === 0) {
-      results.push({
-        fileName: file.fileName,
-        status: 'rejected',
-        error: { code: 'empty-file', message: 'The file is empty.' },
-      });
+    const refused = refuseWholeFile(file);
+    if (refused !== undefined) {
+      results.push({ fileName: file.fileName, status: 'rejected', error: refused });
       continue;
     }
-    const format = detectFormat({ fileName: file.fileName, content: file.content });
-    if (format === undefined) {
-      results.push({
-        fileName: file.fileName,
-        status: 'rejected',
-        error: {
-          code: 'unknown-format',
-          message: 'Not a log Leadline reads: expected GPX, KML, GeoJSON, NMEA 0183 or delimited text (CSV).',
-        },
-      });
-      continue;
-    }
+    const format = detectFormat({ fileName: file.fileName, content: file.content }) ?? null;
     const sha256 = createHash('sha256').update(file.content).digest('hex');
     const { log, created } = await deps.logs.insertOrFind({
       projectId: input.projectId,
