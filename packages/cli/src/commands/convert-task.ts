@@ -34,6 +34,8 @@ export interface ConvertTaskPayload {
   cleanProfile?: { name: string; userProfiles: Record<string, AuditProfile> };
   /** A raw setup (validated by the caller) to re-solve vehicle tracks with before converting. */
   setup?: unknown;
+  /** Start a new segment where fixes are more than this many ms apart. */
+  gapMs?: number;
   /** Document name and time for the writers' metadata (core has no clock). */
   nowMs: number;
 }
@@ -113,21 +115,22 @@ export function convertFileTask(payload: ConvertTaskPayload): ConvertTaskResult 
     });
   }
   const input = { tracks, waypoints: read.waypoints };
+  const gap = payload.gapMs === undefined ? {} : { gapMs: payload.gapMs };
   let crs: ConvertCrsReport | null = null;
   let text: string;
   switch (payload.to) {
     case 'gpx':
-      text = writeGpx(input, { name: payload.displayName, timeMs: payload.nowMs });
+      text = writeGpx(input, { name: payload.displayName, timeMs: payload.nowMs, ...gap });
       break;
     case 'geojson':
-      text = writeGeoJson(input);
+      text = writeGeoJson(input, gap);
       break;
     case 'kml':
-      text = writeKml(input, { name: payload.displayName });
+      text = writeKml(input, { name: payload.displayName, ...gap });
       break;
     case 'csv': {
       if (payload.crs === undefined) {
-        text = writeCsv(input);
+        text = writeCsv(input, gap);
         break;
       }
       let code = payload.crs;
@@ -142,7 +145,7 @@ export function convertFileTask(payload: ConvertTaskPayload): ConvertTaskResult 
         utmNote = `${choice.note}; `;
       }
       const resolved = resolveCrs(code);
-      text = writeCsv(input, { crs: resolved });
+      text = writeCsv(input, { crs: resolved, ...gap });
       crs = {
         code: resolved.code,
         name: resolved.name,

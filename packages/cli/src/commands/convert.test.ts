@@ -143,3 +143,17 @@ describe('runConvert', () => {
     expect(io.out()).toContain('leadline convert "logs/**/*.csv" --to csv --crs utm --out converted/');
   });
 });
+
+describe('leadline convert --gap', () => {
+  it('starts a new segment at gaps longer than the given seconds', async () => {
+    const io = capture();
+    expect(await main(['convert', join(READ_IN, 'csv-plain-decimal.csv'), '--to', 'gpx', '--gap', '0.5'], io)).toBe(0);
+    const segments = (io.out().match(/<trkseg>/g) ?? []).length;
+    const plain = capture();
+    expect(await main(['convert', join(READ_IN, 'csv-plain-decimal.csv'), '--to', 'gpx'], plain)).toBe(0);
+    expect((plain.out().match(/<trkseg>/g) ?? []).length).toBe(1);
+    expect(segments).toBeGreaterThan(1);
+    const bad = capture();
+    expect(await main(['convert', 'x.csv', '--to', 'gpx', '--gap', '-3'], bad)).toBe(2);
+  });
+});

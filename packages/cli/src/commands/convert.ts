@@ -9,7 +9,7 @@ import {
   resolveAuditProfile,
   resolveCrs,
 } from '@leadline/core';
-import { Option } from 'commander';
+import { InvalidArgumentError as CommanderInvalidArgumentError, Option } from 'commander';
 import { EXIT_IO, EXIT_OK, EXIT_USAGE } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
 import {
@@ -47,6 +47,8 @@ export interface ConvertOptions extends CommonOptions {
   clean?: boolean;
   profile?: string;
   setup?: string;
+  /** Seconds without a fix that start a new segment. */
+  gap?: number;
 }
 
 /** What `--json` prints for one input. */
@@ -97,6 +99,11 @@ export const registerConvert: RegisterCommand = (program, context) => {
     .argument('<inputs...>', 'log files, folders or globs; - reads standard input')
     .addOption(new Option('--to <format>', 'output format').choices(CONVERT_FORMATS).makeOptionMandatory())
     .option('--crs <code>', 'CSV only: also write easting/northing in EPSG:<code>, or utm for the data’s UTM zone')
+    .option(
+      '--gap <seconds>',
+      'start a new segment where fixes are more than this many seconds apart',
+      parsePositiveNumber,
+    )
     .option('--clean', 'drop the fixes the audit flags before writing', false)
     .option(
       '--profile <name>',
@@ -113,6 +120,14 @@ export const registerConvert: RegisterCommand = (program, context) => {
 };
 
 class UsageProblem extends Error {}
+
+/** Parses a positive number of seconds; commander reports a bad one as a usage error. */
+function parsePositiveNumber(text: string): number {
+  const value = Number(text);
+  if (!Number.isFinite(value) || value <= 0)
+    throw new CommanderInvalidArgumentError(`expected a positive number of seconds, got "${text}"`);
+  return value;
+}
 
 /**
  * Runs `leadline convert` on `args` and returns the exit code: 0 when every input was converted
@@ -196,6 +211,7 @@ export async function runConvert(
           readOptions,
           to: options.to,
           nowMs,
+          ...(options.gap === undefined ? {} : { gapMs: options.gap * 1000 }),
           ...(crs === undefined ? {} : { crs }),
           ...(cleanProfile === undefined ? {} : { cleanProfile }),
           ...(setup === undefined ? {} : { setup }),
@@ -264,6 +280,7 @@ export async function runConvert(
       to: options.to,
       crs: crs ?? null,
       clean: cleanProfile?.name ?? null,
+      gapS: options.gap ?? null,
       setup: setup ?? null,
       read: readOptions,
     });

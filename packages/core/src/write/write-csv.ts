@@ -6,6 +6,8 @@ import { segmentRanges, type WriteInput } from './write-input.js';
 
 /** Options of `writeCsv`. */
 export interface WriteCsvOptions {
+  /** Also start a new segment where consecutive fixes are more than this many ms apart (loss of reception). */
+  gapMs?: number;
   /**
    * Also write coordinates in this CRS (from `resolveCrs`, or `chooseUtmZone` then `resolveCrs`):
    * `easting_m`/`northing_m` for a projected CRS in metres, `easting_<unit>`/`northing_<unit>`
@@ -84,7 +86,7 @@ export function writeCsv(input: WriteInput, options: WriteCsvOptions = {}): stri
   for (const track of input.tracks) {
     const c = track.columns;
     const projected = reprojection?.forward(c.lonDeg, c.latDeg);
-    const ranges = segmentRanges(track);
+    const ranges = segmentRanges(track, options.gapMs);
     for (let s = 0; s < ranges.length; s++) {
       const [start, end] = ranges[s] as [number, number];
       for (let i = start; i < end; i++) {

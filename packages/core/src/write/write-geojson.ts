@@ -16,6 +16,8 @@ export interface GeoJsonArea {
 
 /** Options of `writeGeoJson`. */
 export interface WriteGeoJsonOptions {
+  /** Also start a new segment where consecutive fixes are more than this many ms apart (loss of reception). */
+  gapMs?: number;
   /** Decimal places of coordinates; default 7 (about 1 cm, RFC 7946 §11.2 says 6 ≈ 10 cm). */
   coordinateDecimals?: number;
   /** Polygons to add after the tracks and waypoints. */
@@ -83,8 +85,8 @@ function splitAtAntimeridian(track: Track, start: number, end: number, decimals:
   return pieces.filter((p) => p.coords.length > 0);
 }
 
-function trackFeature(track: Track, decimals: number): object | undefined {
-  const pieces = segmentRanges(track).flatMap(([s, e]) => splitAtAntimeridian(track, s, e, decimals));
+function trackFeature(track: Track, decimals: number, gapMs: number | undefined): object | undefined {
+  const pieces = segmentRanges(track, gapMs).flatMap(([s, e]) => splitAtAntimeridian(track, s, e, decimals));
   if (pieces.length === 0) return undefined;
   // A LineString needs two or more positions (RFC 7946 §3.1.4): a one-fix piece repeats its point.
   for (const p of pieces) {
@@ -212,7 +214,7 @@ export function writeGeoJson(input: WriteInput, options: WriteGeoJsonOptions = {
   const decimals = options.coordinateDecimals ?? 7;
   const features: object[] = [];
   for (const t of input.tracks) {
-    const f = trackFeature(t, decimals);
+    const f = trackFeature(t, decimals, options.gapMs);
     if (f) features.push(f);
   }
   const lats: number[] = [];

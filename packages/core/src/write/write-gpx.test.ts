@@ -98,3 +98,18 @@ describe('writeGpx', () => {
     runReferenceTool('/usr/bin/xmllint', ['--noout', '--schema', gpxXsd, ...files], '');
   });
 });
+
+describe('writeGpx with gapMs', () => {
+  it('starts a new trkseg at each loss of reception longer than gapMs, and only then', () => {
+    const t0 = Date.UTC(2026, 4, 1);
+    const track = trackOf([
+      { timeMs: t0, latDeg: 1, lonDeg: 1 },
+      { timeMs: t0 + 1000, latDeg: 1, lonDeg: 1.00001 },
+      { timeMs: t0 + 61_000, latDeg: 1, lonDeg: 1.00002 },
+    ]);
+    expect(writeGpx({ tracks: [track], waypoints: [] }).match(/<trkseg>/g)).toHaveLength(1);
+    const split = writeGpx({ tracks: [track], waypoints: [] }, { gapMs: 30_000 });
+    expect(split.match(/<trkseg>/g)).toHaveLength(2);
+    expect(split.indexOf('</trkseg>')).toBeLessThan(split.indexOf('<trkpt lat="1" lon="1.00002"'));
+  });
+});

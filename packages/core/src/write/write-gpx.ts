@@ -9,6 +9,8 @@ export const LEADLINE_GPX_NAMESPACE = 'urn:x-leadline:gpx-extensions:1';
 
 /** Options of `writeGpx`. */
 export interface WriteGpxOptions {
+  /** Also start a new segment where consecutive fixes are more than this many ms apart (loss of reception). */
+  gapMs?: number;
   /** `metadata/name`. */
   name?: string;
   /** `metadata/desc`. */
@@ -114,10 +116,10 @@ function writeTrackHead(lines: string[], track: Track): void {
   lines.push(`    <type>${track.role}</type>`);
 }
 
-function writeTrack(lines: string[], track: Track, decimals: number | undefined): void {
+function writeTrack(lines: string[], track: Track, decimals: number | undefined, gapMs: number | undefined): void {
   if (isRoute(track)) {
     // A route has no segments: one rte per segment keeps every point.
-    for (const [start, end] of segmentRanges(track)) {
+    for (const [start, end] of segmentRanges(track, gapMs)) {
       lines.push('  <rte>');
       writeTrackHead(lines, track);
       writePoints(lines, track, start, end, 'rtept', '    ', decimals);
@@ -127,7 +129,7 @@ function writeTrack(lines: string[], track: Track, decimals: number | undefined)
   }
   lines.push('  <trk>');
   writeTrackHead(lines, track);
-  for (const [start, end] of segmentRanges(track)) {
+  for (const [start, end] of segmentRanges(track, gapMs)) {
     lines.push('    <trkseg>');
     writePoints(lines, track, start, end, 'trkpt', '      ', decimals);
     lines.push('    </trkseg>');
@@ -177,8 +179,8 @@ export function writeGpx(input: WriteInput, options: WriteGpxOptions = {}): stri
   if (metadata.length > 0) lines.push('  <metadata>', ...metadata, '  </metadata>');
   for (const w of input.waypoints) writeWaypoint(lines, w, decimals);
   // gpx child order: metadata, wpt*, rte*, trk* (gpx.xsd).
-  for (const t of input.tracks) if (isRoute(t)) writeTrack(lines, t, decimals);
-  for (const t of input.tracks) if (!isRoute(t)) writeTrack(lines, t, decimals);
+  for (const t of input.tracks) if (isRoute(t)) writeTrack(lines, t, decimals, options.gapMs);
+  for (const t of input.tracks) if (!isRoute(t)) writeTrack(lines, t, decimals, options.gapMs);
   lines.push('</gpx>');
   return `${lines.join('\n')}\n`;
 }

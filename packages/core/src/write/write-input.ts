@@ -12,14 +12,25 @@ export function wrapLongitude(lonDeg: number): number {
   return ((((lonDeg + 180) % 360) + 360) % 360) - 180;
 }
 
-/** `[start, end)` fix index ranges of a track's segments, in order. */
-export function segmentRanges(track: Track): Array<[number, number]> {
+/**
+ * `[start, end)` fix index ranges of a track's segments, in order: the track's own segments, each
+ * also cut where consecutive fixes are more than `gapMs` apart (a loss of reception) when given.
+ */
+export function segmentRanges(track: Track, gapMs?: number): Array<[number, number]> {
   const starts = track.segmentStarts.length > 0 ? track.segmentStarts : track.length > 0 ? [0] : [];
   const ranges: Array<[number, number]> = [];
+  const times = track.columns.timeMs;
   for (let s = 0; s < starts.length; s++) {
     const start = starts[s] as number;
     const end = s + 1 < starts.length ? (starts[s + 1] as number) : track.length;
-    if (end > start) ranges.push([start, end]);
+    let from = start;
+    if (gapMs !== undefined)
+      for (let i = start + 1; i < end; i++)
+        if ((times[i] as number) - (times[i - 1] as number) > gapMs) {
+          ranges.push([from, i]);
+          from = i;
+        }
+    if (end > from) ranges.push([from, end]);
   }
   return ranges;
 }

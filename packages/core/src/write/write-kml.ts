@@ -7,6 +7,8 @@ export const KML_MEDIA_TYPE = 'application/vnd.google-earth.kml+xml';
 
 /** Options of `writeKml`. */
 export interface WriteKmlOptions {
+  /** Also start a new segment where consecutive fixes are more than this many ms apart (loss of reception). */
+  gapMs?: number;
   /** `Document/name`. */
   name?: string;
   /** Decimal places of coordinates; default 7. */
@@ -68,7 +70,7 @@ export function writeKml(input: WriteInput, options: WriteKmlOptions = {}): stri
   ];
   if (options.name !== undefined) lines.push(`    <name>${escapeXml(options.name)}</name>`);
   for (const track of input.tracks) {
-    const ranges = segmentRanges(track);
+    const ranges = segmentRanges(track, options.gapMs);
     const bodies = ranges.map(([s, e]) => lineString(track, s, e, decimals, ranges.length > 1 ? '        ' : '      '));
     const nonEmpty = bodies.filter((b) => b.length > 0);
     if (nonEmpty.length === 0) continue;
