@@ -341,6 +341,16 @@ describe('resolveTrack', () => {
     expect(rmsAgainstTruth(dive, result)).toBeLessThan(0.001);
   });
 
+  it('names a missing depth as such when the sound speed depends on depth', () => {
+    const dive = makeDive({ fixes: 5 });
+    dive.track.columns.depthM[2] = Number.NaN;
+    const result = resolveTrack(dive.track, {
+      ...TRUE_RESOLVE_SETUP,
+      soundSpeed: { loggedMps: 1500, water: { method: 'mackenzie-1981', temperatureC: 8, salinityPsu: 34 } },
+    });
+    expect(result.rejections.map((r) => [r.index, r.reason])).toEqual([[2, 'missing-vehicle-depth']]);
+  });
+
   it('audits the logged and the re-solved track with the same profile, for the verdict to deliver', () => {
     const dive = makeDive({ fixes: 40 });
     const profile = PRESET_PROFILES.diver;

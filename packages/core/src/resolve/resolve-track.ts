@@ -100,8 +100,9 @@ export interface ResolveTrackOptions {
  * bearings are first taken back with the logged offsets), the lever arm is turned with the
  * heading, and positions come from geodesic direct problems on WGS 84 (see
  * `solveVehiclePosition`). The comparison gives how far each fix moved (median, 95th percentile,
- * max) and the audit verdicts of the logged and the re-solved track. Fixes that cannot be positioned become `ResolveRejection`s (missing
- * observations, vertical separation larger than the slant range); none is dropped silently.
+ * max) and the audit verdicts of the logged and the re-solved track. Fixes that cannot be
+ * positioned become `ResolveRejection`s (missing observations, vertical separation larger than
+ * the slant range); none is dropped silently.
  * Throws `InvalidArgumentError` for an invalid setup, a surface track passed as the vehicle, a
  * bearing reference that neither the log nor the setup states, or a WMM declination without a
  * usable place and time.
@@ -159,7 +160,10 @@ export function resolveTrack(track: Track, setupInput: unknown, options: Resolve
   for (let i = 0; i < n; i++) {
     if (segmentStarts.has(i)) segmentPending = true;
     const vehicleDepthM = cols.depthM[i] as number;
-    const waterMps = pathSpeed === undefined ? loggedMps : pathSpeed(draftM, vehicleDepthM);
+    // Without a depth the path's sound speed is unknown; the range is passed on unscaled so the
+    // rejection names the missing depth rather than a missing range.
+    const waterMps =
+      pathSpeed === undefined || !Number.isFinite(vehicleDepthM) ? loggedMps : pathSpeed(draftM, vehicleDepthM);
     const slantRangeM =
       setup.rangeObservation.kind === 'one-way-travel-time'
         ? (travelTimes?.[i] ?? Number.NaN) * waterMps
