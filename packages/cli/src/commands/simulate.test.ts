@@ -60,6 +60,14 @@ describe('runSimulate', () => {
     expect(await main([...args, '--out', out, '--force', '--quiet'], captureIo())).toBe(EXIT_OK);
   });
 
+  it('writes every dive in one layout with --layout', async () => {
+    const out = join(scratch, 'gpx');
+    expect(await main([...args, '--layout', 'gpx', '--out', out, '--quiet'], captureIo())).toBe(EXIT_OK);
+    const logs = listFiles(out).filter((f) => f !== MANIFEST_FILE && !f.endsWith('.truth.json'));
+    expect(logs).toHaveLength(3);
+    for (const log of logs) expect(log.endsWith('.gpx')).toBe(true);
+  });
+
   it('answers a bad count with the usage exit code and says what is valid', async () => {
     const io = captureIo();
     expect(await main(['simulate', '--dives', '0', '--out', join(scratch, 'c')], io)).toBe(EXIT_USAGE);

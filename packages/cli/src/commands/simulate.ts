@@ -2,11 +2,13 @@ import { availableParallelism } from 'node:os';
 import { join } from 'node:path';
 import {
   InvalidArgumentError as CoreArgumentError,
+  LOG_DIALECTS,
+  type LogDialect,
   type PlannedDive,
   planSeason,
   simulatePlannedDive,
 } from '@leadline/core';
-import { InvalidArgumentError } from 'commander';
+import { InvalidArgumentError, Option } from 'commander';
 import { EXIT_IO, EXIT_OK, EXIT_USAGE } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
 import {
@@ -29,6 +31,8 @@ export interface SimulateArgs {
   diveMinutes?: number;
   /** Seconds between fixes; default 1. */
   interval?: number;
+  /** Write every dive in this layout; default: the layouts take turns. */
+  layout?: LogDialect;
   jobs: number;
   json: boolean;
   quiet: boolean;
@@ -98,6 +102,11 @@ export const registerSimulate: RegisterCommand = (program, context) => {
       parsePositiveInteger,
     )
     .option('--interval <seconds>', 'seconds between fixes', parseSeconds)
+    .addOption(
+      new Option('--layout <name>', 'write every dive in this log layout (default: the layouts take turns)').choices(
+        LOG_DIALECTS,
+      ),
+    )
     .option(
       '--jobs <n>',
       'dives simulated at once on worker threads (one per core by default)',
@@ -118,6 +127,7 @@ injected faults, and the observation conventions. All names, sites and vessels a
 Examples:
   leadline simulate --out season                       # the 40-dive demo season
   leadline simulate --dives 5 --seed 7 --out tryout
+  leadline simulate --dives 20 --layout gpx --out gpx-only
   leadline simulate --dives 250 --dive-minutes 120 --out /tmp/big-season --json`,
     )
     .action(async (options: SimulateArgs) => {
@@ -134,6 +144,7 @@ export async function runSimulate(args: SimulateArgs, io: CliIo): Promise<number
       dives: args.dives,
       ...(args.diveMinutes === undefined ? {} : { diveMinutes: args.diveMinutes }),
       ...(args.interval === undefined ? {} : { sampleIntervalS: args.interval }),
+      ...(args.layout === undefined ? {} : { dialect: args.layout }),
     });
   } catch (error) {
     if (error instanceof CoreArgumentError) {
@@ -185,6 +196,7 @@ export async function runSimulate(args: SimulateArgs, io: CliIo): Promise<number
     dives: args.dives,
     diveMinutes: args.diveMinutes ?? null,
     intervalS: args.interval ?? 1,
+    layout: args.layout ?? 'rotating',
   };
   const manifest = await out.writeManifest('simulate', settings);
   written.sort();

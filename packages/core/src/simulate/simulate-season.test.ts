@@ -78,6 +78,13 @@ describe('planSeason', () => {
     expect(times.some((t) => t.startsWith('2026-03-29 02:'))).toBe(false);
   });
 
+  it('writes every dive in one layout when asked, and refuses an unknown layout', () => {
+    expect(new Set(planSeason({ seed: 1, dives: 12, dialect: 'nmea' }).map((d) => d.dialect))).toEqual(
+      new Set(['nmea']),
+    );
+    expect(() => planSeason({ seed: 1, dives: 2, dialect: 'xls' as never })).toThrow(/unknown log layout xls/);
+  });
+
   it('refuses fewer than one dive', () => {
     expect(() => planSeason({ seed: 1, dives: 0 })).toThrow(/1 or more/);
   });

@@ -233,6 +233,8 @@ export interface SeasonOptions {
   diveMinutes?: number;
   /** Interval between fixes, seconds; default 1. */
   sampleIntervalS?: number;
+  /** Write every dive in this layout instead of letting the layouts take turns. */
+  dialect?: LogDialect;
 }
 
 function siteById(id: string): DemoSite {
@@ -372,10 +374,11 @@ function planOneDive(
  * Plans a season of `dives` dives for Hollowtide Subsea: campaigns rotate over the demo sites
  * (two to five weeks apart, repeating every 16 weeks), one to three dives a day starting from
  * local morning, each with its platform, pattern, water, true and logged setup, noise and fault
- * rates, and a log layout (the layouts take turns, so every one appears). With `dives ≥ 21` the
- * season holds a night dive at Skarvholmen across the Europe/Oslo summer-time change, logged in
- * local time. Pure and deterministic. Throws `InvalidArgumentError` for fewer than one dive, a
- * non-positive interval or dive length.
+ * rates, and a log layout (the layouts take turns, so every one appears, unless `dialect` names
+ * one). A season that reaches 29 March 2026 (the third campaign, after some 20–35 dives) holds
+ * a night dive at Skarvholmen across the Europe/Oslo summer-time change, logged in local time. Pure and deterministic. Throws `InvalidArgumentError`
+ * for fewer than one dive, a non-positive interval, a dive shorter than 5 minutes, or an unknown
+ * layout.
  */
 export function planSeason(options: SeasonOptions): PlannedDive[] {
   const { seed, dives } = options;
@@ -385,6 +388,8 @@ export function planSeason(options: SeasonOptions): PlannedDive[] {
     throw new InvalidArgumentError(`the sample interval must be positive, got ${sampleIntervalS}`);
   if (options.diveMinutes !== undefined && !(options.diveMinutes >= 5))
     throw new InvalidArgumentError(`a dive must last 5 minutes or more, got ${options.diveMinutes}`);
+  if (options.dialect !== undefined && !LOG_DIALECTS.includes(options.dialect))
+    throw new InvalidArgumentError(`unknown log layout ${options.dialect}; one of ${LOG_DIALECTS.join(', ')}`);
   const random = createRandomSource(seed);
   const planned: PlannedDive[] = [];
   const duration = () => 60 * (options.diveMinutes ?? Math.round(random.between(25, 110)));
@@ -398,7 +403,7 @@ export function planSeason(options: SeasonOptions): PlannedDive[] {
         const date = first.plus({ days: day });
         if (!dstDivePlanned && cycle === 0 && site.id === DST_NIGHT_DIVE.siteId && date.toISODate() === '2026-03-29') {
           dstDivePlanned = true;
-          const dialect: LogDialect = 'csv-local-time';
+          const dialect: LogDialect = options.dialect ?? 'csv-local-time';
           const startMs = Date.parse(DST_NIGHT_DIVE.startUtc);
           planned.push(
             planOneDive(
@@ -417,7 +422,7 @@ export function planSeason(options: SeasonOptions): PlannedDive[] {
         let next = date.set({ hour: 8, minute: 0 }).plus({ minutes: random.integer(0, 75) });
         for (let k = 0; k < divesToday && planned.length < dives; k++) {
           const durationS = duration();
-          const dialect = LOG_DIALECTS[planned.length % LOG_DIALECTS.length] as LogDialect;
+          const dialect = options.dialect ?? (LOG_DIALECTS[planned.length % LOG_DIALECTS.length] as LogDialect);
           planned.push(planOneDive(planned.length, seed, site, next.toMillis(), durationS, dialect, sampleIntervalS));
           next = next.plus({ seconds: durationS, minutes: random.integer(30, 90) });
         }
