@@ -62,8 +62,8 @@ export interface DiveSummary {
 export interface SummariseDiveOptions {
   /** The surface unit's own track, used for ranges when the vehicle fixes carry no surface position. */
   surface?: Track;
-  /** One byte per vehicle fix, non-zero when the audit flagged it. */
-  flagged?: Uint8Array;
+  /** One value per vehicle fix, non-zero when the audit flagged it (for example `auditTrack(...).flags`). */
+  flagged?: ArrayLike<number>;
   /** Share of the maximum depth where the bottom band starts; default 0.8. */
   bottomFraction?: number;
 }
