@@ -369,6 +369,28 @@ describe('resolveTrack', () => {
     });
   });
 
+  it('interpolates a surface track across the antimeridian the short way', () => {
+    const surface = new TrackBuilder(2);
+    surface.push({ timeMs: 0, latDeg: -17, lonDeg: 179.9999, headingDeg: 350 });
+    surface.push({ timeMs: 2000, latDeg: -17, lonDeg: -179.9999, headingDeg: 10 });
+    const surfaceTrack = surface.build({
+      id: 's',
+      role: 'surface',
+      provenance: makeDive({ fixes: 1 }).track.provenance,
+    });
+    const vehicle = new TrackBuilder(1);
+    // Straight below the transceiver, so its position is the interpolated surface position.
+    vehicle.push({ timeMs: 1000, latDeg: -17, lonDeg: 180, depthM: 20, slantRangeM: 20, bearingDeg: 0 });
+    const track = vehicle.build({ id: 'v', role: 'vehicle', provenance: surfaceTrack.provenance });
+    const result = resolveTrack(
+      track,
+      { soundSpeed: { loggedMps: 1500 }, bearingReference: { value: 'relative' } },
+      { surfaceTrack },
+    );
+    expect(result.rejections).toEqual([]);
+    expect(Math.abs(result.track.columns.lonDeg[0] as number)).toBeCloseTo(180, 9);
+  });
+
   it('refuses an invalid setup, naming the key, and an unknown bearing reference', () => {
     const dive = makeDive({ fixes: 3 });
     expect(() => resolveTrack(dive.track, { soundSpeed: { loggedMps: -1 } })).toThrow(/soundSpeed\.loggedMps/);

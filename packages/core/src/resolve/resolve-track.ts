@@ -7,7 +7,7 @@ import { geodesicDistanceM } from '../geodesy/geodesic.js';
 import type { BearingReference, Provenance, Track } from '../model/track.js';
 import { getFix } from '../model/track.js';
 import { TrackBuilder } from '../model/track-builder.js';
-import { normaliseAzimuthDeg } from '../model/units.js';
+import { normaliseAzimuthDeg, normaliseLongitudeDeg } from '../model/units.js';
 import { createPathSoundSpeed } from './create-path-sound-speed.js';
 import { magneticDeclination } from './magnetic-declination.js';
 import { parseResolveSetup, type ResolveSetup } from './resolve-setup.js';
@@ -339,9 +339,12 @@ function interpolateSurface(
   const h0 = c.headingDeg[lo] as number;
   const h1 = c.headingDeg[hi] as number;
   const dh = ((((h1 - h0) % 360) + 540) % 360) - 180;
+  // Longitude along the shorter way too, so a surface unit on the antimeridian is not sent round the world.
+  const lon0 = c.lonDeg[lo] as number;
+  const dLon = (((((c.lonDeg[hi] as number) - lon0) % 360) + 540) % 360) - 180;
   return {
     latDeg: lerp(c.latDeg[lo] as number, c.latDeg[hi] as number),
-    lonDeg: lerp(c.lonDeg[lo] as number, c.lonDeg[hi] as number),
+    lonDeg: normaliseLongitudeDeg(lon0 + f * dLon),
     headingDeg: normaliseAzimuthDeg(h0 + f * dh),
   };
 }
