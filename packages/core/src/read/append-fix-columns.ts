@@ -67,7 +67,9 @@ export class FixColumnAppender {
   build(meta: { id: string; role: TrackRole; name?: string; provenance: Provenance }): Track {
     const n = this.#length;
     const columns = {} as FixColumns;
-    for (const name of FIX_COLUMN_NAMES) columns[name] = this.#columns[name].slice(0, n);
+    // right-sized already (a good capacity hint): hand the arrays over instead of copying them
+    for (const name of FIX_COLUMN_NAMES)
+      columns[name] = n === this.#capacity ? this.#columns[name] : this.#columns[name].slice(0, n);
     return {
       ...meta,
       length: n,

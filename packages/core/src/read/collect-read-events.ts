@@ -22,6 +22,8 @@ export function collectReadEvents(
   events: Iterable<ReadEvent>,
   context: {
     fileName: string;
+    /** Expected fixes in the first track, to size its columns once (an estimate; they still grow). */
+    capacityHint?: number;
     format: LogFormat;
     timeZone?: string;
     columnReport?: () => ColumnReportEntry[] | undefined;
@@ -36,7 +38,9 @@ export function collectReadEvents(
   let nonFixRowCount = 0;
   let dialect: string = context.format;
   const openTrack = (role: TrackRole, name?: string, provenance: Partial<Provenance> = {}): OpenTrack => {
-    const track: OpenTrack = { builder: new FixColumnAppender(1024), role, provenance };
+    const capacity =
+      open.length === 0 && context.capacityHint !== undefined ? Math.max(1024, context.capacityHint) : 1024;
+    const track: OpenTrack = { builder: new FixColumnAppender(capacity), role, provenance };
     if (name !== undefined) track.name = name;
     open.push(track);
     return track;

@@ -136,19 +136,19 @@ export class FastCsvRowReader {
     this.batch.count = 0;
   }
 
-  /** Reads one row into the batch; `false` (and nothing written) when the row needs the general path. */
-  read(text: string, line: number): boolean {
+  /** Reads one row (characters `lineStart` to `lineEnd` of `text`) into the batch; `false` (and nothing written) when the row needs the general path. */
+  read(text: string, lineStart: number, lineEnd: number, line: number): boolean {
     const k = this.batch.count;
-    const n = text.length;
+    const n = lineEnd;
     const width = this.#width;
     const kinds = this.#kinds;
     const targets = this.#targets;
-    let start = 0;
+    let start = lineStart;
     let field = 0;
     let depth = Number.NaN;
     for (; field < width; field++) {
       let end = text.indexOf(this.#delimiter, start);
-      if (end < 0) end = n;
+      if (end < 0 || end > n) end = n;
       else if (field === width - 1) {
         // one more field than the header: only a trailing empty one is tolerated
         if (end + 1 !== n) return false;

@@ -18,7 +18,7 @@ import { FastCsvRowReader } from './parse-csv-row-fast.js';
 import { LogTimeParser, type ParsedTime } from './parse-log-time.js';
 import { projectRowsToWgs84 } from './project-rows.js';
 import type { ReadEvent } from './read-event.js';
-import { type LogLine, splitLogLines } from './split-log-lines.js';
+import { iterateLogLines, type LogLine, LogLineCursor } from './split-log-lines.js';
 
 /** Lines looked at to detect the delimiter, the header and the column mapping. */
 const SAMPLE_LINES = 64;
@@ -56,8 +56,8 @@ export function* readCsvEvents(
 ): Generator<ReadEvent> {
   const file = input.fileName;
   const times = new LogTimeParser(options.timeZone ?? 'UTC');
-  const lines = splitLogLines(input.chunks, { joinQuoted: true });
-  // 1. gather a sample
+  const lines = iterateLogLines(input.chunks, { joinQuoted: true });
+  // 1. gather a sample (copied: the line cursor is reused)
   const head: LogLine[] = [];
   let contentLines = 0;
   // pull the sample by hand: breaking out of a for-of would close the line generator
@@ -66,8 +66,11 @@ export function* readCsvEvents(
     !next.done;
     next = contentLines >= SAMPLE_LINES ? { done: true, value: undefined } : lines.next()
   ) {
-    head.push(next.value);
-    if (next.value.text.trim() !== '' && !isComment(next.value.text)) contentLines++;
+    const c = next.value;
+    const copy: LogLine =
+      c.tooLongChars >= 0 ? { text: '', line: c.line, tooLongChars: c.tooLongChars } : { text: c.text, line: c.line };
+    head.push(copy);
+    if (copy.text.trim() !== '' && !isComment(copy.text)) contentLines++;
   }
   const content = head.filter((l) => l.tooLongChars === undefined && l.text.trim() !== '' && !isComment(l.text));
   const delimiter = detectDelimiter(content.map((l) => l.text));
@@ -166,21 +169,43 @@ export function* readCsvEvents(
     projected || missingTime !== undefined || missingPosition !== undefined
       ? undefined
       : FastCsvRowReader.create(map, delimiter, decimalComma, width);
-  const all = (function* () {
-    yield* head;
+  const all = (function* (): Generator<LogLineCursor> {
+    const cursor = new LogLineCursor();
+    for (const l of head) {
+      cursor.source = l.text;
+      cursor.start = 0;
+      cursor.end = l.text.length;
+      cursor.line = l.line;
+      cursor.tooLongChars = l.tooLongChars ?? -1;
+      cursor.quoteCount = l.text.indexOf('"') < 0 ? 0 : 1;
+      yield cursor;
+    }
     yield* lines;
   })();
-  for (const { text, line, tooLongChars } of all) {
-    if (tooLongChars !== undefined) {
+  for (const c of all) {
+    const line = c.line;
+    if (c.tooLongChars >= 0) {
       rowCount++;
-      yield reject(line, 'line-too-long', `a line of at most 65536 characters`, `${tooLongChars} characters`);
+      yield reject(line, 'line-too-long', `a line of at most 65536 characters`, `${c.tooLongChars} characters`);
       continue;
     }
-    if (text.length === 0 || text.trim() === '') continue; // blank lines are not rows
+    const src = c.source;
+    const start = c.start;
+    const end = c.end;
+    if (start === end) continue; // blank lines are not rows
+    const first = src.charCodeAt(start);
+    let text: string | undefined;
+    if (first <= 32) {
+      text = src.slice(start, end);
+      if (text.trim() === '') continue;
+    }
     rowCount++;
-    if (isComment(text)) {
-      yield { kind: 'non-fix-row', line, why: 'comment' };
-      continue;
+    if (first === 35 || first === 47 || first <= 32) {
+      text ??= src.slice(start, end);
+      if (isComment(text)) {
+        yield { kind: 'non-fix-row', line, why: 'comment' };
+        continue;
+      }
     }
     if (!headerSeen) {
       headerSeen = true;
@@ -188,7 +213,7 @@ export function* readCsvEvents(
       continue;
     }
     if (fast !== undefined) {
-      if (text.indexOf('"') < 0 && fast.read(text, line)) {
+      if (c.quoteCount === 0 && fast.read(src, start, end, line)) {
         if (fast.full) {
           yield { kind: 'fix-batch', batch: fast.batch };
           fast.reset();
@@ -201,6 +226,7 @@ export function* readCsvEvents(
         fast.reset();
       }
     }
+    text ??= src.slice(start, end);
     const cells = splitCsvRecord(text, delimiter);
     if (cells.length !== width && !(cells.length === width + 1 && (cells[width] ?? '').trim() === '')) {
       yield reject(

@@ -12,53 +12,125 @@ export interface LogLine {
 }
 
 /**
- * Splits text, given in one or more chunks, into lines in bounded memory: CRLF, LF and lone CR
- * end a line; a line longer than `maxChars` is reported by length and skipped, never copied.
- * With `joinQuoted`, a line with an odd number of `"` continues on the next (RFC 4180 fields
- * with line breaks) within the same limit.
+ * Where the current line is, without copying it: characters `start` to `end` of `source`. The
+ * iterator hands out the same cursor for every line, so a consumer reads it before asking for
+ * the next one (or keeps `text`, which copies).
  */
-export function* splitLogLines(
+export class LogLineCursor {
+  source = '';
+  start = 0;
+  end = 0;
+  /** 1-based number of the line's first physical line. */
+  line = 0;
+  /** Length of a line longer than the limit (then `source` is empty), else -1. */
+  tooLongChars = -1;
+  /** Number of `"` in the line when quotes are counted, else -1. */
+  quoteCount = -1;
+
+  /** The line's text (a copy). */
+  get text(): string {
+    return this.source.slice(this.start, this.end);
+  }
+}
+
+/**
+ * Walks text, given in one or more chunks, line by line in bounded memory: CRLF, LF and lone CR
+ * end a line; a line longer than `maxChars` is reported by length (`tooLongChars`) and skipped,
+ * never copied. With `joinQuoted`, a line with an odd number of `"` continues on the next (RFC 4180
+ * fields with line breaks) within the same limit. Yields one reused `LogLineCursor`.
+ */
+export function* iterateLogLines(
   chunks: Iterable<string>,
   options: { joinQuoted?: boolean; maxChars?: number } = {},
-): Generator<LogLine> {
+): Generator<LogLineCursor> {
   const maxChars = options.maxChars ?? MAX_LINE_CHARS;
   const joinQuoted = options.joinQuoted ?? false;
+  const cursor = new LogLineCursor();
   let carry = '';
   let carryLength = 0; // length of the current line so far, also when it is too long and dropped
   let tooLong = false;
   let lineNo = 1;
-  let pendingStart = 0; // line number where a quoted record began
-  let pending: string | undefined;
+  let pending: string | undefined; // an open quoted record
+  let pendingStart = 0;
+  let pendingQuotes = 0;
   let pendingCr = false; // the previous chunk ended with CR: a following LF belongs to it
-  const emit = function* (text: string, length: number, dropped: boolean): Generator<LogLine> {
+  let chunk = '';
+  let nextQuote = -2;
+
+  const countQuotes = (src: string, s: number, e: number): number => {
+    let count = 0;
+    if (src === chunk) {
+      // a cached position keeps the scan linear over a chunk without quotes
+      if (nextQuote !== -1 && nextQuote < s) nextQuote = chunk.indexOf('"', s);
+      let q = nextQuote;
+      while (q >= 0 && q < e) {
+        count++;
+        q = chunk.indexOf('"', q + 1);
+      }
+      nextQuote = q;
+      return count;
+    }
+    for (let q = src.indexOf('"', s); q >= 0 && q < e; q = src.indexOf('"', q + 1)) count++;
+    return count;
+  };
+  const setTooLong = (line: number, length: number): true => {
+    cursor.source = '';
+    cursor.start = 0;
+    cursor.end = 0;
+    cursor.line = line;
+    cursor.tooLongChars = length;
+    cursor.quoteCount = -1;
+    return true;
+  };
+  const setLine = (src: string, s: number, e: number, line: number, quotes: number): true => {
+    cursor.source = src;
+    cursor.start = s;
+    cursor.end = e;
+    cursor.line = line;
+    cursor.tooLongChars = -1;
+    cursor.quoteCount = quotes;
+    return true;
+  };
+  /** Takes one physical line; whether the cursor now holds a line to hand out. */
+  const take = (src: string, s: number, e: number, length: number, dropped: boolean): boolean => {
     const line = lineNo++;
     if (dropped) {
       if (pending !== undefined) {
-        yield { text: '', line: pendingStart, tooLongChars: pending.length + length };
+        const total = pending.length + 1 + length;
         pending = undefined;
-      } else yield { text: '', line, tooLongChars: length };
-      return;
+        return setTooLong(pendingStart, total);
+      }
+      return setTooLong(line, length);
     }
-    if (joinQuoted) {
-      const whole = pending === undefined ? text : `${pending}\n${text}`;
-      const start = pending === undefined ? line : pendingStart;
-      if (countQuotes(whole) % 2 === 1) {
+    if (!joinQuoted) return setLine(src, s, e, line, -1);
+    const quotes = countQuotes(src, s, e);
+    if (pending !== undefined) {
+      const whole = `${pending}\n${src.slice(s, e)}`;
+      const total = pendingQuotes + quotes;
+      if (total % 2 === 1) {
         if (whole.length > maxChars) {
           pending = undefined;
-          yield { text: '', line: start, tooLongChars: whole.length };
-          return;
+          return setTooLong(pendingStart, whole.length);
         }
         pending = whole;
-        pendingStart = start;
-        return;
+        pendingQuotes = total;
+        return false;
       }
       pending = undefined;
-      yield { text: whole, line: start };
-      return;
+      return setLine(whole, 0, whole.length, pendingStart, total);
     }
-    yield { text, line };
+    if (quotes % 2 === 1) {
+      pending = src.slice(s, e);
+      pendingStart = line;
+      pendingQuotes = quotes;
+      return false;
+    }
+    return setLine(src, s, e, line, quotes);
   };
-  for (const chunk of chunks) {
+
+  for (const next of chunks) {
+    chunk = next;
+    nextQuote = -2;
     let i = 0;
     const n = chunk.length;
     if (pendingCr && n > 0) {
@@ -71,12 +143,9 @@ export function* splitLogLines(
       // cached positions keep the scan linear when a file has only LF (or only CR) terminators
       if (nextLf !== -1 && nextLf < i) nextLf = chunk.indexOf('\n', i);
       if (nextCr !== -1 && nextCr < i) nextCr = chunk.indexOf('\r', i);
-      let end: number;
-      if (nextCr >= 0 && (nextLf < 0 || nextCr < nextLf)) end = nextCr;
-      else end = nextLf;
+      const end = nextCr >= 0 && (nextLf < 0 || nextCr < nextLf) ? nextCr : nextLf;
       if (end < 0) {
-        const rest = n - i;
-        carryLength += rest;
+        carryLength += n - i;
         if (!tooLong) {
           if (carryLength > maxChars) {
             tooLong = true;
@@ -87,8 +156,12 @@ export function* splitLogLines(
       }
       const length = carryLength + (end - i);
       const dropped = tooLong || length > maxChars;
-      const text = dropped ? '' : carry.length > 0 ? carry + chunk.slice(i, end) : chunk.slice(i, end);
-      yield* emit(text, length, dropped);
+      let ready: boolean;
+      if (dropped) ready = take('', 0, 0, length, true);
+      else if (carry.length > 0) {
+        const whole = carry + chunk.slice(i, end);
+        ready = take(whole, 0, whole.length, length, false);
+      } else ready = take(chunk, i, end, length, false);
       carry = '';
       carryLength = 0;
       tooLong = false;
@@ -99,26 +172,34 @@ export function* splitLogLines(
           i = n;
         }
       } else i = end + 1;
+      if (ready) yield cursor;
     }
   }
-  if (carryLength > 0 || pending !== undefined) {
-    if (carryLength > 0 || tooLong) yield* emit(carry, carryLength, tooLong || carryLength > maxChars);
-    else if (pending !== undefined) {
-      // an unterminated quoted field at the end of the file: give it back as it is
-      const start = pendingStart;
-      const text = pending;
-      pending = undefined;
-      yield { text, line: start };
-    }
+  chunk = '';
+  if (carryLength > 0) {
+    const ready =
+      tooLong || carryLength > maxChars
+        ? take('', 0, 0, carryLength, true)
+        : take(carry, 0, carry.length, carryLength, false);
+    if (ready) yield cursor;
+  }
+  if (pending !== undefined) {
+    // an unterminated quoted field at the end of the file: give it back as it is
+    const text = pending;
+    pending = undefined;
+    setLine(text, 0, text.length, pendingStart, pendingQuotes);
+    yield cursor;
   }
 }
 
-function countQuotes(text: string): number {
-  let count = 0;
-  let at = text.indexOf('"');
-  while (at >= 0) {
-    count++;
-    at = text.indexOf('"', at + 1);
+/** `iterateLogLines` with a fresh `LogLine` per line (the text copied), for consumers that keep lines. */
+export function* splitLogLines(
+  chunks: Iterable<string>,
+  options: { joinQuoted?: boolean; maxChars?: number } = {},
+): Generator<LogLine> {
+  for (const c of iterateLogLines(chunks, options)) {
+    yield c.tooLongChars >= 0
+      ? { text: '', line: c.line, tooLongChars: c.tooLongChars }
+      : { text: c.text, line: c.line };
   }
-  return count;
 }
