@@ -85,6 +85,12 @@ describe('planSeason', () => {
     expect(() => planSeason({ seed: 1, dives: 2, dialect: 'xls' as never })).toThrow(/unknown log layout xls/);
   });
 
+  it('plans seasons that run past the bundled magnetic model (declination held at its last modelled value)', () => {
+    const long = planSeason({ seed: 1, dives: 900, diveMinutes: 30 });
+    expect(long.at(-1)?.spec.startTimeMs).toBeGreaterThan(Date.UTC(2029, 10, 13));
+    expect(Number.isFinite(long.at(-1)?.spec.trueSetup.declinationDeg)).toBe(true);
+  });
+
   it('refuses fewer than one dive', () => {
     expect(() => planSeason({ seed: 1, dives: 0 })).toThrow(/1 or more/);
   });

@@ -216,6 +216,9 @@ const CYCLE_DAYS = 16 * 7;
 /** The night dive whose local times cross the 2026 summer-time change in Europe/Oslo (01:40 CET → 04:05 CEST). */
 const DST_NIGHT_DIVE = { siteId: 'skarvholmen', startUtc: '2026-03-29T00:40:00Z', minutes: 85 } as const;
 
+// The newest bundled World Magnetic Model (WMM2025) is valid to 2029-11-13.
+const LAST_MODELLED_TIME_MS = Date.UTC(2029, 10, 1);
+
 /** One planned dive: its spec and the layout its logs are written in. */
 export interface PlannedDive {
   index: number;
@@ -303,7 +306,9 @@ function planOneDive(
   const platform = VEHICLE_PLATFORMS[platformName];
   const pattern = patternFor(site, platformName, random);
   const declinationDeg = round(
-    magneticDeclination(site.originLatDeg, site.originLonDeg, startTimeMs).declinationDeg,
+    // Very long seasons run past the bundled World Magnetic Model; the declination then stays at its last modelled value.
+    magneticDeclination(site.originLatDeg, site.originLonDeg, Math.min(startTimeMs, LAST_MODELLED_TIME_MS))
+      .declinationDeg,
     2,
   );
   const trueSetup = {
