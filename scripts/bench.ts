@@ -285,6 +285,55 @@ benchmarks.push({
   },
 });
 
+// Re-solve (issue 7): geometry, path-mean sound speed, WMM declination, movement and the two audits.
+benchmarks.push({
+  name: 're-solve 50 000 fixes (Mackenzie path mean, WMM, lever arm, movement, audit before and after)',
+  run: async () => {
+    const { directGeodesic, resolveTrack, TrackBuilder } = await import('../packages/core/src/index.js');
+    const n = 50_000;
+    const builder = new TrackBuilder(n);
+    const startMs = Date.UTC(2026, 4, 1);
+    for (let i = 0; i < n; i++) {
+      const v = directGeodesic(62.47, 6.15, (i * 0.7) % 360, 40 + (i % 50));
+      builder.push({
+        timeMs: startMs + i * 1000,
+        latDeg: v.latDeg,
+        lonDeg: v.lonDeg,
+        depthM: 20 + (i % 10),
+        slantRangeM: 60 + (i % 40),
+        bearingDeg: (i * 3) % 360,
+        surfaceLatDeg: 62.47,
+        surfaceLonDeg: 6.15,
+        surfaceHeadingDeg: 45,
+      });
+    }
+    const track = builder.build({
+      id: 'bench',
+      role: 'vehicle',
+      provenance: {
+        sourceFile: 'bench',
+        format: 'csv',
+        dialect: 'generated',
+        timeZone: 'UTC',
+        depthSign: { rule: 'depth', doubtful: false, reason: 'generated' },
+        bearingReference: 'relative',
+      },
+    });
+    const setup = {
+      soundSpeed: { loggedMps: 1500, water: { method: 'mackenzie-1981', temperatureC: 8, salinityPsu: 34 } },
+      declination: { method: 'wmm' },
+      leverArm: { forwardM: 2, starboardM: 1 },
+    };
+    let best = Number.POSITIVE_INFINITY;
+    for (let r = 0; r < 3; r++) {
+      const t0 = performance.now();
+      resolveTrack(track, setup);
+      best = Math.min(best, performance.now() - t0);
+    }
+    return `${best.toFixed(0)} ms wall, ${((n / best) * 1000).toFixed(0)} fixes/s (best of 3)`;
+  },
+});
+
 if (benchmarks.length === 0) {
   process.stdout.write(
     'bench: no benchmarks yet (they arrive with the readers, reprojection and geodesy work); nothing measured.\n',
