@@ -21,6 +21,7 @@ import { createHealthRoutes } from './routes/health-routes.js';
 import { createInvitationRoutes } from './routes/invitation-routes.js';
 import { createMailboxRoutes } from './routes/mailbox-routes.js';
 import { createMemberRoutes } from './routes/member-routes.js';
+import { createOrganisationRoutes } from './routes/organisation-routes.js';
 import { createProjectRoutes } from './routes/project-routes.js';
 import { authenticateApiToken } from './services/api-token-service.js';
 import type { ServiceContext } from './services/service-context.js';
@@ -109,6 +110,7 @@ export function buildApp(deps: AppDependencies): BuiltApp {
   const routes: RouteSpec[] = [
     ...createHealthRoutes({ healthStore: ctx.health }),
     ...createAuthRoutes(ctx, limits),
+    ...createOrganisationRoutes(ctx),
     ...createMemberRoutes(ctx),
     ...createInvitationRoutes(ctx, limits),
     ...createApiTokenRoutes(ctx),

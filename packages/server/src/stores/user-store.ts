@@ -35,7 +35,12 @@ export interface UserStore {
   membershipsOf(userId: string): Promise<MembershipRecord[]>;
   roleOf(organisationId: string, userId: string): Promise<Role | undefined>;
   organisationExists(organisationId: string): Promise<boolean>;
-  createOrganisation(input: { name: string; slug: string }): Promise<{ id: string }>;
+  /** `undefined` when the slug is taken. */
+  createOrganisation(input: { name: string; slug: string }): Promise<{ id: string } | undefined>;
+  findOrganisation(
+    organisationId: string,
+  ): Promise<{ id: string; name: string; slug: string; createdAt: Date } | undefined>;
+  renameOrganisation(organisationId: string, name: string): Promise<void>;
   listMembers(organisationId: string): Promise<MemberRecord[]>;
   /** Adds the membership, or leaves an existing one as it is; reports whether it added. */
   addMembership(organisationId: string, userId: string, role: Role): Promise<boolean>;
@@ -103,9 +108,21 @@ export function createKnexUserStore(db: Knex): UserStore {
       return row !== undefined;
     },
     async createOrganisation(input) {
-      const [row] = await db('organisations').insert(input).returning<{ id: string }[]>('id');
-      if (row === undefined) throw new Error('the organisation was not created');
+      const [row] = await db('organisations')
+        .insert(input)
+        .onConflict('slug')
+        .ignore()
+        .returning<{ id: string }[]>('id');
       return row;
+    },
+    async findOrganisation(organisationId) {
+      const row: { id: string; name: string; slug: string; created_at: Date } | undefined = await db('organisations')
+        .where({ id: organisationId })
+        .first('id', 'name', 'slug', 'created_at');
+      return row === undefined ? undefined : { id: row.id, name: row.name, slug: row.slug, createdAt: row.created_at };
+    },
+    async renameOrganisation(organisationId, name) {
+      await db('organisations').where({ id: organisationId }).update({ name });
     },
     async listMembers(organisationId) {
       const rows: Array<{ user_id: string; email: string; display_name: string; role: Role; created_at: Date }> =
