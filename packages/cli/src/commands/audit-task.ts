@@ -10,6 +10,7 @@ import {
   formatRejection,
   formatReportJson,
   type ReadOptions,
+  type ReportPlot,
   readLog,
   type SplitOptions,
   splitDives,
@@ -48,8 +49,12 @@ export interface AuditTaskResult {
   ok: boolean;
   error?: string;
   readRejections: Array<{ line: number; reason: string; message: string }>;
+  /** Why nothing was audited in a log that was read (a surface unit's own log). */
+  note?: string;
   dives: DiveReport[];
   files: AuditTaskFile[];
+  /** With the html format: a small plot per dive for the batch page. */
+  plots: ReportPlot[];
 }
 
 /**
@@ -61,14 +66,18 @@ export function auditFileTask(payload: AuditTaskPayload): AuditTaskResult {
   const read = readLog({ fileName: payload.displayName, content: payload.bytes }, payload.readOptions);
   const readRejections = read.rejections.map((r) => ({ line: r.line, reason: r.code, message: formatRejection(r) }));
   const vehicles = read.tracks.filter((t) => t.role === 'vehicle');
+  if (vehicles.length === 0 && read.tracks.length > 0)
+    return {
+      ok: true,
+      note: 'a surface unit log: nothing to audit on its own (the vehicle log carries the surface positions)',
+      readRejections,
+      dives: [],
+      files: [],
+      plots: [],
+    };
   if (vehicles.length === 0) {
-    const why =
-      read.tracks.length > 0
-        ? 'the log holds only surface unit tracks; the audit needs a vehicle track'
-        : read.rejections[0] === undefined
-          ? 'no tracks in the log'
-          : formatRejection(read.rejections[0]);
-    return { ok: false, error: why, readRejections, dives: [], files: [] };
+    const why = read.rejections[0] === undefined ? 'no tracks in the log' : formatRejection(read.rejections[0]);
+    return { ok: false, error: why, readRejections, dives: [], files: [], plots: [] };
   }
   const surface = read.tracks.find((t) => t.role === 'surface');
   const tracks: Track[] =
@@ -80,6 +89,7 @@ export function auditFileTask(payload: AuditTaskPayload): AuditTaskResult {
         });
   const dives: DiveReport[] = [];
   const files: AuditTaskFile[] = [];
+  const plots: ReportPlot[] = [];
   const many = tracks.length > 1;
   tracks.forEach((track, k) => {
     const audit = auditTrack(track, { profile: payload.profile, setup: payload.setup });
@@ -89,6 +99,7 @@ export function auditFileTask(payload: AuditTaskPayload): AuditTaskResult {
         : { file: payload.displayName, track, audit, surface },
     );
     dives.push(report);
+    if (payload.formats.includes('html')) plots.push(buildReportPlot(track, audit.flags, 400, 200));
     const suffix = many ? `.${safeName(track.id)}.audit` : '.audit';
     for (const format of payload.formats) {
       const text =
@@ -100,7 +111,7 @@ export function auditFileTask(payload: AuditTaskPayload): AuditTaskResult {
       files.push({ suffix, extension: `.${format}`, text, dive: k });
     }
   });
-  return { ok: true, readRejections, dives, files };
+  return { ok: true, readRejections, dives, files, plots };
 }
 
 function safeName(id: string): string {

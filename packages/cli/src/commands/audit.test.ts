@@ -72,6 +72,7 @@ describe('runAudit', () => {
     expect(html).not.toMatch(/<script|src="http/);
     const batch = readFileSync(join(out, 'audit-report.html'), 'utf8');
     expect(batch).toContain('href="clean-patrol.audit.html"');
+    expect(batch.match(/<svg /g)).toHaveLength(4); // plan and depth per dive
     expect(existsSync(join(out, 'leadline-run.json'))).toBe(true);
     const again = capture();
     expect(await runAudit(['clean-patrol.csv'], options, again, IN)).toBe(3);

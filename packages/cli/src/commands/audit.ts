@@ -12,6 +12,7 @@ import {
   parseAuditSetup,
   parseUserProfiles,
   type ReadOptions,
+  type ReportPlot,
   resolveAuditProfile,
   type Severity,
   type Verdict,
@@ -70,8 +71,10 @@ export interface AuditFileReport {
   file: string;
   ok: boolean;
   error?: string;
-  /** The worst verdict over the input's dives (`null` when it could not be read). */
+  /** The worst verdict over the input's dives (`null` when it could not be read or holds no vehicle track). */
   verdict: Verdict | null;
+  /** Why a log that was read has no dives (a surface unit's own log). */
+  note?: string;
   findings: AuditJsonFinding[];
   readRejections: Array<{ line: number; reason: string; message: string }>;
   /** The full dive reports (schema `leadline/dive-report@1`). */
@@ -97,7 +100,8 @@ when a dive reaches --fail-on (default fail; "never" to report only).
 
 --json prints an array with one object per input: file, ok, error (when not read), verdict
 (pass|warn|fail, the worst over the input's dives), findings (dive, check, severity, startTime,
-endTime, measured, limit, unit, message), readRejections (line, reason, message), dives (full dive
+endTime, measured, limit, unit, message), note (why a log that was read has no dives, e.g. a
+surface unit's own log), readRejections (line, reason, message), dives (full dive
 reports, schema leadline/dive-report@1, see packages/core/src/report/README.md) and outputs.`;
 
 const RANK: Record<Verdict, number> = { pass: 0, warn: 1, fail: 2 };
@@ -212,6 +216,7 @@ export async function runAudit(
   const progress = startProgress(io, inputs.length, options);
   const pool = createTaskPool(Math.min(options.jobs, inputs.length));
   const hrefs: Array<Array<string | undefined>> = [];
+  const plots: Array<ReportPlot[]> = [];
   let results: Awaited<ReturnType<typeof runPool<InputFile, AuditFileReport>>>;
   try {
     results = await runPool(
@@ -239,6 +244,7 @@ export async function runAudit(
             links[file.dive] = written.path.split('\\').join('/');
           }
         hrefs[index] = links;
+        plots[index] = result.plots;
         return toFileReport(input.displayName, result, outputs);
       },
       (done) => progress.update(done),
@@ -278,6 +284,7 @@ export async function runAudit(
   if (out !== undefined) {
     const dives = reports.flatMap((r) => r.dives);
     const links = reports.flatMap((r, i) => (r.ok ? (hrefs[i] ?? r.dives.map(() => undefined)) : []));
+    const divePlots = reports.flatMap((r, i) => (r.ok ? r.dives.map((_d, k) => plots[i]?.[k]) : []));
     const batch = buildBatchReport(dives, { profile: profile.name, generatedAtMs: Date.now(), hrefs: links });
     const format = formats[0] ?? 'json';
     const text =
@@ -285,7 +292,7 @@ export async function runAudit(
         ? formatReportJson(batch)
         : format === 'md'
           ? formatBatchReportMarkdown(batch)
-          : formatBatchReportHtml(batch);
+          : formatBatchReportHtml(batch, { dives, plots: divePlots });
     try {
       await out.write(resolvePath(out.root, `audit-report.${format}`), text);
     } catch (error) {
@@ -320,6 +327,17 @@ function toFileReport(file: string, result: AuditTaskResult, outputs: WrittenOut
       dives: [],
       outputs,
     };
+  if (result.dives.length === 0)
+    return {
+      file,
+      ok: true,
+      ...(result.note === undefined ? {} : { note: result.note }),
+      verdict: null,
+      findings: [],
+      readRejections: result.readRejections,
+      dives: [],
+      outputs,
+    };
   let verdict: Verdict = 'pass';
   const findings: AuditJsonFinding[] = [];
   for (const dive of result.dives) {
@@ -347,6 +365,8 @@ function formatTable(reports: readonly AuditFileReport[], outRoot: string | unde
       lines.push(`-\t${report.file}\t-\t-\t-\t-\t-\t-\t-\tnot read: ${report.error ?? ''}`);
       continue;
     }
+    if (report.dives.length === 0)
+      lines.push(`-\t${report.file}\t-\t-\t-\t-\t-\t-\t-\t${report.note ?? 'no vehicle track'}`);
     for (const d of report.dives) {
       const s1a = d.s44.find((o) => o.order === '1a')?.share ?? null;
       lines.push(

@@ -41,6 +41,8 @@ export interface SplitSpanReport {
 export interface SplitTaskResult {
   ok: boolean;
   error?: string;
+  /** Why a log that was read has no dives (a surface unit's own log). */
+  note?: string;
   readRejections: Array<{ line: number; reason: string; message: string }>;
   fixCount: number;
   dives: SplitSpanReport[];
@@ -74,13 +76,10 @@ export function splitFileTask(payload: SplitTaskPayload): SplitTaskResult {
   const readRejections = read.rejections.map((r) => ({ line: r.line, reason: r.code, message: formatRejection(r) }));
   const vehicles = read.tracks.filter((t) => t.role === 'vehicle');
   const empty = { readRejections, fixCount: 0, dives: [], surfaceIntervals: [], files: [] };
+  if (vehicles.length === 0 && read.tracks.length > 0)
+    return { ok: true, note: 'a surface unit log: no vehicle track to split', ...empty };
   if (vehicles.length === 0) {
-    const why =
-      read.tracks.length > 0
-        ? 'the log holds only surface unit tracks; splitting needs a vehicle track'
-        : read.rejections[0] === undefined
-          ? 'no tracks in the log'
-          : formatRejection(read.rejections[0]);
+    const why = read.rejections[0] === undefined ? 'no tracks in the log' : formatRejection(read.rejections[0]);
     return { ok: false, error: why, ...empty };
   }
   const result: SplitTaskResult = { ok: true, ...empty, dives: [], surfaceIntervals: [], files: [] };

@@ -49,6 +49,8 @@ export interface SplitFileReport {
   file: string;
   ok: boolean;
   error?: string;
+  /** Why a log that was read has no dives (a surface unit's own log). */
+  note?: string;
   fixCount: number;
   dives: SplitSpanReport[];
   surfaceIntervals: SplitSpanReport[];
@@ -67,7 +69,8 @@ lasting --surface-time seconds or more (defaults from --profile: 900 s, 1 m, 300
 lands in exactly one dive or one surface interval; nothing is dropped. With --out each dive is
 written as <name>.dive-NN.<format>.
 
---json prints an array with one object per input: file, ok, error (when not read), fixCount, dives
+--json prints an array with one object per input: file, ok, error (when not read), note (why a
+log that was read has no dives, e.g. a surface unit's own log), fixCount, dives
 and surfaceIntervals (track, number, startIndex, endIndex, fixCount, startTime, endTime),
 readRejections (line, reason, message) and outputs.`;
 

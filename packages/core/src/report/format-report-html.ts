@@ -25,6 +25,7 @@ th{background:#f3f1ec}.verdict{display:inline-block;padding:.2rem .7rem;border-r
 .caution{border-left:4px solid #a12a1d;background:#fdf3f1;padding:.5rem .8rem;margin:1rem 0}
 .plots{display:grid;gap:1rem}figure{margin:0}figcaption{font-size:.85rem;color:#555}
 footer{margin-top:2rem;font-size:.8rem;color:#666}
+.pair{display:grid;grid-template-columns:1fr 1fr;gap:.5rem}section{break-inside:avoid}
 @media print{body{max-width:none;margin:0}h2{break-after:avoid}figure,table{break-inside:avoid}a{color:inherit;text-decoration:none}}
 `;
 
@@ -94,20 +95,56 @@ ${s44}
   return page(`Dive audit ${report.trackId}: ${report.verdict}`, body);
 }
 
-/** A batch report as a self-contained HTML page: verdict counts and one row per dive, linked to its own report when `href` is set. */
-export function formatBatchReportHtml(report: BatchReport): string {
+/** What a batch page may show besides its table: each dive's report and a small plot, by the batch's dive order. */
+export interface BatchHtmlDetail {
+  dives?: readonly DiveReport[];
+  plots?: readonly (ReportPlot | undefined)[];
+}
+
+/**
+ * A batch report as a self-contained HTML page: verdict counts, one row per dive (linked to its
+ * own report when `href` is set), and, when `detail` gives them, every dive's warn and fail
+ * findings and a small plan view and depth profile per dive, flagged fixes marked.
+ */
+export function formatBatchReportHtml(report: BatchReport, detail: BatchHtmlDetail = {}): string {
   const rows = report.dives
-    .map((d) => {
+    .map((d, k) => {
       const name = d.href === undefined ? esc(d.trackId) : `<a href="${esc(d.href)}">${esc(d.trackId)}</a>`;
-      return `<tr><td class="sev-${d.verdict === 'pass' ? 'info' : d.verdict}">${d.verdict}</td><td>${name}</td><td>${esc(d.file)}</td><td>${esc(d.startTime ?? '–')}</td><td>${num(d.durationS === null ? null : d.durationS / 60)}</td><td>${d.fixCount}</td><td>${d.flaggedCount}</td><td>${d.findingCounts.fail} / ${d.findingCounts.warn} / ${d.findingCounts.info}</td></tr>`;
+      return `<tr><td class="sev-${d.verdict === 'pass' ? 'info' : d.verdict}">${d.verdict}</td><td><a href="#dive-${k + 1}">${k + 1}</a></td><td>${name}</td><td>${esc(d.file)}</td><td>${esc(d.startTime ?? '–')}</td><td>${num(d.durationS === null ? null : d.durationS / 60)}</td><td>${d.fixCount}</td><td>${d.flaggedCount}</td><td>${d.findingCounts.fail} / ${d.findingCounts.warn} / ${d.findingCounts.info}</td></tr>`;
     })
     .join('\n');
+  const sections: string[] = [];
+  const dives = detail.dives ?? [];
+  dives.forEach((dive, k) => {
+    const plot = detail.plots?.[k];
+    const serious = dive.findings.filter((f) => f.severity !== 'info');
+    const findings =
+      serious.length === 0
+        ? '<p>No warn or fail findings.</p>'
+        : `<table><thead><tr><th>Severity</th><th>Check</th><th>From (UTC)</th><th>To (UTC)</th><th>What it means</th></tr></thead><tbody>${serious
+            .slice(0, 200)
+            .map(
+              (f) =>
+                `<tr><td class="sev-${f.severity}">${f.severity}</td><td>${esc(f.check)}</td><td>${esc(f.startTime ?? '–')}</td><td>${esc(f.endTime ?? '–')}</td><td>${esc(f.message)}</td></tr>`,
+            )
+            .join(
+              '',
+            )}</tbody></table>${serious.length > 200 ? `<p>… and ${serious.length - 200} more in the dive's own report.</p>` : ''}`;
+    const plots =
+      plot === undefined
+        ? ''
+        : `<div class="pair"><figure>${renderPlanSvg(plot)}</figure><figure>${renderDepthSvg(plot)}</figure></div>`;
+    sections.push(
+      `<section id="dive-${k + 1}"><h2>${k + 1}. ${esc(dive.trackId)} <span class="verdict ${dive.verdict}">${dive.verdict.toUpperCase()}</span></h2><p>${esc(dive.summary.startTime ?? '–')}, ${num(dive.summary.durationS === null ? null : dive.summary.durationS / 60)} min, ${dive.fixCount} fixes (${dive.flaggedCount} flagged), max depth ${num(dive.summary.maxDepthM)} m.</p>${plots}${findings}</section>`,
+    );
+  });
   const body = `<header><h1>Batch audit</h1>
 <p><span class="verdict ${report.verdict}">${report.verdict.toUpperCase()}</span> ${report.verdictCounts.pass} pass, ${report.verdictCounts.warn} warn, ${report.verdictCounts.fail} fail; ${report.dives.length} dives, ${report.fixCount} fixes, ${report.flaggedCount} flagged (profile ${esc(report.profile)})</p></header>
 <p class="caution"><strong>Caution.</strong> ${esc(report.caution)}</p>
-<table><thead><tr><th>Verdict</th><th>Dive</th><th>Log</th><th>Start (UTC)</th><th>Minutes</th><th>Fixes</th><th>Flagged</th><th>fail / warn / info</th></tr></thead><tbody>
+<table><thead><tr><th>Verdict</th><th>#</th><th>Dive</th><th>Log</th><th>Start (UTC)</th><th>Minutes</th><th>Fixes</th><th>Flagged</th><th>fail / warn / info</th></tr></thead><tbody>
 ${rows}
 </tbody></table>
-<footer>${esc(report.verdictRule)}. Leadline ${esc(report.leadlineVersion)}, report schema ${esc(report.schema)}${report.generatedAt === null ? '' : `, audited ${esc(report.generatedAt)}`}.</footer>`;
+${sections.join('\n')}
+<footer>${esc(report.verdictRule)}. Leadline ${esc(report.leadlineVersion)}, report schema ${esc(report.schema)}${report.generatedAt === null ? '' : `, audited ${esc(report.generatedAt)}`}. Plan views in metres east and north of each dive's first fix; flagged fixes as red rings.</footer>`;
   return page(`Batch audit: ${report.verdict}`, body);
 }

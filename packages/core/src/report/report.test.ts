@@ -126,5 +126,15 @@ describe('buildBatchReport', () => {
     const html = formatBatchReportHtml(batch);
     expect(html).toContain('<a href="a.html">test</a>');
     expect(html).toContain('1 pass, 1 warn, 0 fail');
+    expect(html).not.toContain('<svg');
+    const { track, audit } = sampleDive();
+    const detailed = formatBatchReportHtml(batch, {
+      dives: [a, b],
+      plots: [buildReportPlot(track, audit.flags, 300), undefined],
+    });
+    expect(detailed.match(/<svg /g)).toHaveLength(2);
+    expect(detailed).toContain('id="dive-2"');
+    expect(detailed).toContain('position-jump');
+    expect(detailed).not.toMatch(/<script|src="http|href="http/);
   });
 });
