@@ -8,7 +8,7 @@ import { parseDecimal } from './parse-csv-row-fast.js';
 import { LogTimeParser } from './parse-log-time.js';
 import { type LogTextInput, refusedLog } from './read-csv.js';
 import type { ReadEvent } from './read-event.js';
-import { splitLogLines } from './split-log-lines.js';
+import { iterateLogLines } from './split-log-lines.js';
 
 const DAY_MS = 86_400_000;
 const HALF_DAY_MS = 43_200_000;
@@ -130,53 +130,58 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
     current = { todMs, line, fix, hasPosition: false };
     return current;
   };
-  for (const { text, line, tooLongChars } of splitLogLines(input.chunks)) {
+  for (const c of iterateLogLines(input.chunks)) {
     if (out.length > 0) {
       for (let k = 0; k < out.length; k++) yield out[k] as ReadEvent;
       out.length = 0;
     }
-    if (tooLongChars !== undefined) {
+    const line = c.line;
+    if (c.tooLongChars >= 0) {
       rowCount++;
-      yield reject(line, 'line-too-long', 'an NMEA sentence of at most 82 characters', `${tooLongChars} characters`);
+      yield reject(line, 'line-too-long', 'an NMEA sentence of at most 82 characters', `${c.tooLongChars} characters`);
       continue;
     }
-    const trimmed = text.trim();
-    if (trimmed === '') continue;
+    const src = c.source;
+    let from = c.start;
+    let to = c.end;
+    // trim white space at both ends without copying
+    while (from < to && src.charCodeAt(from) <= 32) from++;
+    while (to > from && src.charCodeAt(to - 1) <= 32) to--;
+    if (from === to) continue;
     rowCount++;
-    const start = Math.max(trimmed.indexOf('$'), -1);
-    const bang = trimmed.indexOf('!');
-    const at = start >= 0 ? start : bang;
-    if (at < 0) {
+    let at = src.charCodeAt(from) === 36 ? from : src.indexOf('$', from);
+    if (at < 0 || at >= to) at = src.indexOf('!', from);
+    if (at < 0 || at >= to) {
       yield reject(
         line,
         'unsupported-sentence',
         'an NMEA 0183 sentence ($, talker ID, sentence type, fields)',
-        quote(trimmed),
+        quote(src.slice(from, to)),
       );
       continue;
     }
-    const sentence = trimmed.slice(at);
-    if (sentence.length + 2 > NMEA_MAX_SENTENCE) overLength++;
-    const star = sentence.lastIndexOf('*');
+    if (to - at + 2 > NMEA_MAX_SENTENCE) overLength++;
+    const star = src.lastIndexOf('*', to - 1);
     let body: string;
-    if (star >= 0) {
-      body = sentence.slice(1, star);
-      const given = sentence.slice(star + 1, star + 3).toUpperCase();
-      const computed = computeNmeaChecksum(body);
-      if (given !== computed) {
+    if (star > at) {
+      body = src.slice(at + 1, star);
+      const computed = checksumOfRange(src, at + 1, star);
+      const given = src.slice(star + 1, Math.min(star + 3, to));
+      if (given !== computed && given.toUpperCase() !== computed) {
         yield reject(
           line,
           'bad-checksum',
           `checksum ${computed} (XOR of the characters between $ and *)`,
-          `*${sentence.slice(star + 1)}`,
-          at + star + 1,
+          `*${src.slice(star + 1, to)}`,
+          star - c.start + 1,
         );
         continue;
       }
     } else {
-      body = sentence.slice(1);
+      body = src.slice(at + 1, to);
       withoutChecksum++;
     }
+    const sentence = src.slice(at, to);
     const fields = body.split(',');
     const address = fields[0] ?? '';
     if (sentence.charCodeAt(0) === 33 || address.length < 5 || address.charCodeAt(0) === 80 /* P: proprietary */) {
@@ -395,6 +400,14 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
     for (const [k, v] of Object.entries(values))
       if (typeof v === 'number' && !Number.isNaN(v)) (target as Record<string, number>)[k] = v;
   }
+}
+
+const HEX = '0123456789ABCDEF';
+
+function checksumOfRange(text: string, start: number, end: number): string {
+  let x = 0;
+  for (let i = start; i < end; i++) x ^= text.charCodeAt(i);
+  return (HEX[(x >> 4) & 15] as string) + (HEX[x & 15] as string);
 }
 
 /** `hhmmss[.ss]` to milliseconds after midnight; `undefined` when malformed. */
