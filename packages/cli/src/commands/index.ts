@@ -2,6 +2,7 @@ import type { Command } from 'commander';
 import type { CliIo } from '../io.js';
 import { registerAudit } from './audit.js';
 import { registerCompletion } from './completion.js';
+import { registerPush } from './push.js';
 import { registerConvert } from './convert.js';
 import { registerCrs } from './crs.js';
 import { registerInspect } from './inspect.js';
@@ -28,5 +29,6 @@ export const COMMANDS: readonly RegisterCommand[] = [
   registerResolve,
   registerSimulate,
   registerCrs,
+  registerPush,
   registerCompletion,
 ];
