@@ -10,6 +10,12 @@ export interface AuditSetup {
   surfaceStationary?: boolean;
   /** Transceiver depth below the water surface, metres. */
   transceiverDraftM?: number;
+  /**
+   * Override the profile's surface-drift limits, metres: a boat holding position wanders more than a
+   * pole on a quay (common practice: a small boat holds station within a circle of about 10 m).
+   */
+  surfaceDriftWarnM?: number;
+  surfaceDriftFailM?: number;
   /** Overrides the profile's acoustic or tether range, metres. */
   maxRangeM?: number;
   /** Overrides the profile's uncertainty model key by key (the system's stated accuracies). */

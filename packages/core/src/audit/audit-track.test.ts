@@ -150,6 +150,11 @@ describe('auditTrack', () => {
     expect(drift.length).toBe(1);
     expect(drift[0]?.severity).toBe('fail');
     expect(drift[0]?.startIndex).toBe(200);
+    const boat = auditTrack(track, {
+      profile: rov,
+      setup: { surfaceStationary: true, surfaceDriftWarnM: 40, surfaceDriftFailM: 60 },
+    });
+    expect(boat.findings.some((f) => f.check === 'surface-drift')).toBe(false);
     const moving = auditTrack(track, { profile: rov, setup: {} });
     expect(moving.findings.some((f) => f.check === 'surface-drift')).toBe(false);
   });

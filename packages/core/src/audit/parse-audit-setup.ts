@@ -6,6 +6,8 @@ const AuditSetupSchema = z.strictObject({
   surfaceStationary: z.boolean().optional(),
   transceiverDraftM: z.number().finite().nonnegative().optional(),
   maxRangeM: z.number().finite().positive().optional(),
+  surfaceDriftWarnM: z.number().finite().positive().optional(),
+  surfaceDriftFailM: z.number().finite().positive().optional(),
   uncertainty: z
     .strictObject({
       usblRangeFraction: z.number().nonnegative().max(1).optional(),
@@ -19,7 +21,8 @@ const AuditSetupSchema = z.strictObject({
 });
 
 /**
- * Validates an audit setup (`surfaceStationary`, `transceiverDraftM`, `maxRangeM`, `uncertainty`)
+ * Validates an audit setup (`surfaceStationary`, `transceiverDraftM`, `maxRangeM`,
+ * `surfaceDriftWarnM`, `surfaceDriftFailM`, `uncertainty`)
  * read from JSON. Throws `InvalidArgumentError` listing every problem as `<key>: <what is wrong>`.
  */
 export function parseAuditSetup(raw: unknown): AuditSetup {
@@ -30,6 +33,8 @@ export function parseAuditSetup(raw: unknown): AuditSetup {
     if (rest.surfaceStationary !== undefined) setup.surfaceStationary = rest.surfaceStationary;
     if (rest.transceiverDraftM !== undefined) setup.transceiverDraftM = rest.transceiverDraftM;
     if (rest.maxRangeM !== undefined) setup.maxRangeM = rest.maxRangeM;
+    if (rest.surfaceDriftWarnM !== undefined) setup.surfaceDriftWarnM = rest.surfaceDriftWarnM;
+    if (rest.surfaceDriftFailM !== undefined) setup.surfaceDriftFailM = rest.surfaceDriftFailM;
     if (uncertainty !== undefined) {
       const clean = Object.fromEntries(Object.entries(uncertainty).filter(([, v]) => v !== undefined));
       setup.uncertainty = clean;

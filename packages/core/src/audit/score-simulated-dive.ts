@@ -80,7 +80,7 @@ export function trackFromSimulatedDive(dive: SimulatedDive): Track {
  * fix is flagged by the repeated-time or time-backwards check; a dropout lies inside a time-gap
  * finding; a surface-unit drift overlaps a surface-drift finding. The audit runs with the preset
  * profile of the dive's platform (or `profile`), the setup's draft, and the surface unit marked
- * stationary (a quay, or a boat meant to hold position).
+ * stationary (a quay; or a boat meant to hold position, judged against 10 m / 25 m drift limits).
  */
 export function scoreSimulatedDive(dive: SimulatedDive, profile?: AuditProfile): SimulatedDiveScore {
   const track = trackFromSimulatedDive(dive);
@@ -95,6 +95,8 @@ export function scoreSimulatedDive(dive: SimulatedDive, profile?: AuditProfile):
     profile: chosen,
     setup: {
       surfaceStationary: true,
+      // a boat holding position is judged against a 10 m circle, a quay pole against the profile's 5 m
+      ...(dive.spec.surfaceUnit.kind === 'boat' ? { surfaceDriftWarnM: 10, surfaceDriftFailM: 25 } : {}),
       transceiverDraftM: dive.spec.loggedSetup.draftM,
       uncertainty: {
         usblRangeFraction: 2.45 * Math.max(noise.rangeFraction, lateralFraction),

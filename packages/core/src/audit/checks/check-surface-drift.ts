@@ -13,13 +13,18 @@ function median(values: number[]): number {
 /**
  * Surface unit drifting while the setup says it is stationary: each surface position is compared
  * with where the unit was set up (its median position over the log's first `profile.fixRateWindowS`
- * seconds); runs farther than `profile.surfaceDriftWarnM` are findings,
- * `fail` when they reach `profile.surfaceDriftFailM`. No fix is flagged (the vehicle positions
+ * seconds); runs farther than `surfaceDriftWarnM` are findings, `fail` when they reach
+ * `surfaceDriftFailM` (the setup's values when given, else the profile's). No fix is flagged (the vehicle positions
  * follow the real surface position; a re-solve from a fixed surveyed position would not). An
  * `info` finding when the setup says stationary but the log has no surface positions.
  */
 export function checkSurfaceDrift(context: AuditContext): Finding[] {
-  const { n, profile, setup, surfaceEastM, surfaceNorthM, hasSurface } = context;
+  const { n, setup, surfaceEastM, surfaceNorthM, hasSurface } = context;
+  const profile = {
+    ...context.profile,
+    surfaceDriftWarnM: setup.surfaceDriftWarnM ?? context.profile.surfaceDriftWarnM,
+    surfaceDriftFailM: setup.surfaceDriftFailM ?? context.profile.surfaceDriftFailM,
+  };
   const time = context.track.columns.timeMs;
   if (setup.surfaceStationary !== true || n === 0) return [];
   if (!hasSurface) {
