@@ -197,5 +197,6 @@ export { GEOJSON_MEDIA_TYPE, writeGeoJson } from './write/write-geojson.js';
 export type { WriteGpxOptions } from './write/write-gpx.js';
 export { LEADLINE_GPX_NAMESPACE, writeGpx } from './write/write-gpx.js';
 export type { WriteInput } from './write/write-input.js';
+export { withSurfaceTracks } from './write/write-input.js';
 export type { WriteKmlOptions } from './write/write-kml.js';
 export { KML_MEDIA_TYPE, writeKml } from './write/write-kml.js';

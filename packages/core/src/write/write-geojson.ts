@@ -1,7 +1,7 @@
 import { computeBoundingBox } from '../geodesy/measure-track.js';
 import type { Track } from '../model/track.js';
 import { formatIsoTime } from './format-decimal.js';
-import { segmentRanges, type WriteInput, wrapLongitude } from './write-input.js';
+import { segmentRanges, type WriteInput, withSurfaceTracks, wrapLongitude } from './write-input.js';
 
 /** The media type of GeoJSON (RFC 7946 §12). */
 export const GEOJSON_MEDIA_TYPE = 'application/geo+json';
@@ -16,6 +16,8 @@ export interface GeoJsonArea {
 
 /** Options of `writeGeoJson`. */
 export interface WriteGeoJsonOptions {
+  /** Write the surface unit logged beside vehicle fixes as its own track (default `true`; see `withSurfaceTracks`). */
+  surfaceFromColumns?: boolean;
   /** Also start a new segment where consecutive fixes are more than this many ms apart (loss of reception). */
   gapMs?: number;
   /** Decimal places of coordinates; default 7 (about 1 cm, RFC 7946 §11.2 says 6 ≈ 10 cm). */
@@ -200,7 +202,8 @@ function areaFeature(area: GeoJsonArea, decimals: number): object | undefined {
 }
 
 /**
- * Writes tracks, waypoints and optional areas as an RFC 7946 GeoJSON FeatureCollection: positions
+ * Writes tracks (plus the surface unit logged beside vehicle fixes as its own track, see
+ * `withSurfaceTracks`), waypoints and optional areas as an RFC 7946 GeoJSON FeatureCollection: positions
  * `[lon, lat]` in WGS 84 (no `crs` member, no third element: depth is below the sea surface, not a
  * height above the ellipsoid), rounded to 7 decimals by default; one Feature per track (a
  * MultiLineString when it has several segments or crosses the antimeridian, which it is cut at),
@@ -210,7 +213,8 @@ function areaFeature(area: GeoJsonArea, decimals: number): object | undefined {
  * `bbox` `[west, south, east, north]` with west > east across the antimeridian. Fixes without a
  * position are left out. Serve it as `application/geo+json`.
  */
-export function writeGeoJson(input: WriteInput, options: WriteGeoJsonOptions = {}): string {
+export function writeGeoJson(given: WriteInput, options: WriteGeoJsonOptions = {}): string {
+  const input = options.surfaceFromColumns === false ? given : withSurfaceTracks(given);
   const decimals = options.coordinateDecimals ?? 7;
   const features: object[] = [];
   for (const t of input.tracks) {

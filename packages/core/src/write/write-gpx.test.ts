@@ -113,3 +113,22 @@ describe('writeGpx with gapMs', () => {
     expect(split.indexOf('</trkseg>')).toBeLessThan(split.indexOf('<trkpt lat="1" lon="1.00002"'));
   });
 });
+
+describe('writeGpx with a surface unit logged beside the vehicle fixes', () => {
+  it('writes the surface unit as its own track of type surface, unless asked not to', () => {
+    const t0 = Date.UTC(2026, 4, 1);
+    const vehicle = trackOf([
+      { timeMs: t0, latDeg: 1, lonDeg: 1, depthM: 20, surfaceLatDeg: 1.0001, surfaceLonDeg: 1, surfaceHeadingDeg: 90 },
+      { timeMs: t0 + 1000, latDeg: 1, lonDeg: 1.00001, depthM: 20, surfaceLatDeg: 1.0001, surfaceLonDeg: 1.00001 },
+    ]);
+    const gpx = writeGpx({ tracks: [vehicle], waypoints: [] });
+    expect(gpx.match(/<trk>/g)).toHaveLength(2);
+    expect(gpx).toMatch(/<name>dive-1 \(surface unit\)<\/name>\s*<src>[^<]*<\/src>\s*<type>surface<\/type>/);
+    const read = readLog({ fileName: 'x.gpx', content: gpx }, { format: 'gpx' });
+    expect(read.tracks.map((t) => t.role)).toEqual(['vehicle', 'surface']);
+    expect(read.tracks[1]?.columns.latDeg[0]).toBe(1.0001);
+    expect(writeGpx({ tracks: [vehicle], waypoints: [] }, { surfaceFromColumns: false }).match(/<trk>/g)).toHaveLength(
+      1,
+    );
+  });
+});

@@ -2,13 +2,15 @@ import { computeBoundingBox } from '../geodesy/measure-track.js';
 import type { Track, Waypoint } from '../model/track.js';
 import { LEADLINE_VERSION } from '../version.js';
 import { escapeXml, formatDecimal, formatIsoTime } from './format-decimal.js';
-import { segmentRanges, type WriteInput, wrapLongitude } from './write-input.js';
+import { segmentRanges, type WriteInput, withSurfaceTracks, wrapLongitude } from './write-input.js';
 
 /** Leadline's own GPX extension namespace (per-fix depth and the raw observation). */
 export const LEADLINE_GPX_NAMESPACE = 'urn:x-leadline:gpx-extensions:1';
 
 /** Options of `writeGpx`. */
 export interface WriteGpxOptions {
+  /** Write the surface unit logged beside vehicle fixes as its own track (default `true`; see `withSurfaceTracks`). */
+  surfaceFromColumns?: boolean;
   /** Also start a new segment where consecutive fixes are more than this many ms apart (loss of reception). */
   gapMs?: number;
   /** `metadata/name`. */
@@ -138,7 +140,8 @@ function writeTrack(lines: string[], track: Track, decimals: number | undefined,
 }
 
 /**
- * Writes tracks and waypoints as GPX 1.1 that validates against the TopoGrafix schema: metadata
+ * Writes tracks (plus the surface unit logged beside vehicle fixes as its own track, see
+ * `withSurfaceTracks`) and waypoints as GPX 1.1 that validates against the TopoGrafix schema: metadata
  * with creator, optional name/desc/time and bounds (`minlon > maxlon` when the data crosses the
  * antimeridian); waypoints first, then one `trk` per track (`type` = `vehicle` or `surface`), one
  * `trkseg` per segment. Depth is written as negative `ele` and as `leadline:depth` (metres,
@@ -147,7 +150,8 @@ function writeTrack(lines: string[], track: Track, decimals: number | undefined,
  * waypoints without a position cannot be GPX points and are left out; everything else is kept. A
  * track with no times at all (a planned line) is written as `rte` so it reads back the same.
  */
-export function writeGpx(input: WriteInput, options: WriteGpxOptions = {}): string {
+export function writeGpx(given: WriteInput, options: WriteGpxOptions = {}): string {
+  const input = options.surfaceFromColumns === false ? given : withSurfaceTracks(given);
   const decimals = options.coordinateDecimals;
   const lats: number[] = [];
   const lons: number[] = [];

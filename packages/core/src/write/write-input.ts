@@ -1,4 +1,5 @@
 import type { Track, Waypoint } from '../model/track.js';
+import { TrackBuilder } from '../model/track-builder.js';
 
 /** What every writer takes: the tracks (vehicle and surface unit) and the waypoints (targets). */
 export interface WriteInput {
@@ -33,4 +34,40 @@ export function segmentRanges(track: Track, gapMs?: number): Array<[number, numb
     if (end > from) ranges.push([from, end]);
   }
   return ranges;
+}
+
+/**
+ * The input with a separate surface-unit track added for each vehicle track that logged the surface
+ * unit's position beside its fixes (`surfaceLatDeg`/`surfaceLonDeg`) when the input holds no surface
+ * track of its own, so map formats show the surface unit as its own line. The derived track has id
+ * `<vehicle id>#surface`, the vehicle's times and segments, and the surface heading.
+ */
+export function withSurfaceTracks(input: WriteInput): WriteInput {
+  if (input.tracks.some((t) => t.role === 'surface')) return input;
+  const derived: Track[] = [];
+  for (const track of input.tracks) {
+    const c = track.columns;
+    const builder = new TrackBuilder(Math.max(1, track.length));
+    const starts = new Set(track.segmentStarts);
+    for (let i = 0; i < track.length; i++) {
+      if (starts.has(i)) builder.startSegment();
+      const lat = c.surfaceLatDeg[i] as number;
+      const lon = c.surfaceLonDeg[i] as number;
+      if (Number.isNaN(lat) || Number.isNaN(lon)) continue;
+      builder.push(
+        { timeMs: c.timeMs[i] as number, latDeg: lat, lonDeg: lon, headingDeg: c.surfaceHeadingDeg[i] as number },
+        track.sourceLines[i] ?? 0,
+      );
+    }
+    if (builder.length === 0) continue;
+    derived.push(
+      builder.build({
+        id: `${track.id}#surface`,
+        role: 'surface',
+        name: `${track.name ?? track.id} (surface unit)`,
+        provenance: track.provenance,
+      }),
+    );
+  }
+  return derived.length === 0 ? input : { tracks: [...input.tracks, ...derived], waypoints: input.waypoints };
 }

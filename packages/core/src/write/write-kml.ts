@@ -1,12 +1,14 @@
 import type { Track } from '../model/track.js';
 import { escapeXml, formatDecimal, formatIsoTime } from './format-decimal.js';
-import { segmentRanges, type WriteInput, wrapLongitude } from './write-input.js';
+import { segmentRanges, type WriteInput, withSurfaceTracks, wrapLongitude } from './write-input.js';
 
 /** The media type of KML. */
 export const KML_MEDIA_TYPE = 'application/vnd.google-earth.kml+xml';
 
 /** Options of `writeKml`. */
 export interface WriteKmlOptions {
+  /** Write the surface unit logged beside vehicle fixes as its own track (default `true`; see `withSurfaceTracks`). */
+  surfaceFromColumns?: boolean;
   /** Also start a new segment where consecutive fixes are more than this many ms apart (loss of reception). */
   gapMs?: number;
   /** `Document/name`. */
@@ -55,13 +57,15 @@ function timeSpan(track: Track, indent: string): string[] {
 }
 
 /**
- * Writes tracks and waypoints as KML 2.2: one Placemark per track (a LineString, or a
+ * Writes tracks (plus the surface unit logged beside vehicle fixes as its own track, see
+ * `withSurfaceTracks`) and waypoints as KML 2.2: one Placemark per track (a LineString, or a
  * MultiGeometry of LineStrings for several segments) and one per waypoint. Coordinates are
  * `lon,lat,alt` with alt = −depth in metres and `altitudeMode` `absolute` (relative to sea level),
  * so the vehicle draws below the sea surface; a value without depth sits at 0. Each track carries
  * a TimeSpan of its first and last fix. Fixes without a position are left out.
  */
-export function writeKml(input: WriteInput, options: WriteKmlOptions = {}): string {
+export function writeKml(given: WriteInput, options: WriteKmlOptions = {}): string {
+  const input = options.surfaceFromColumns === false ? given : withSurfaceTracks(given);
   const decimals = options.coordinateDecimals ?? 7;
   const lines = [
     '<?xml version="1.0" encoding="UTF-8"?>',
