@@ -34,6 +34,8 @@ export interface ConvertTaskPayload {
   cleanProfile?: { name: string; userProfiles: Record<string, AuditProfile> };
   /** A raw setup (validated by the caller) to re-solve vehicle tracks with before converting. */
   setup?: unknown;
+  /** NTv2 grid files the user supplied, by file name, for a CRS whose datum shift needs one. */
+  grids?: Record<string, Uint8Array>;
   /** Start a new segment where fixes are more than this many ms apart. */
   gapMs?: number;
   /** Document name and time for the writers' metadata (core has no clock). */
@@ -144,7 +146,7 @@ export function convertFileTask(payload: ConvertTaskPayload): ConvertTaskResult 
         utmStraddles = choice.straddles;
         utmNote = `${choice.note}; `;
       }
-      const resolved = resolveCrs(code);
+      const resolved = resolveCrs(code, payload.grids === undefined ? {} : { grids: payload.grids });
       text = writeCsv(input, { crs: resolved, ...gap });
       crs = {
         code: resolved.code,

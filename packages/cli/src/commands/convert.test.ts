@@ -157,3 +157,25 @@ describe('leadline convert --gap', () => {
     expect(await main(['convert', 'x.csv', '--to', 'gpx', '--gap', '-3'], bad)).toBe(2);
   });
 });
+
+describe('leadline convert --grid', () => {
+  const beta = '/usr/share/proj/BETA2007.gsb';
+  it('uses a grid file the user supplies for the output CRS instead of the Helmert fallback', async () => {
+    if (!existsSync(beta)) {
+      if (process.env.CI) throw new Error(`${beta} (Debian proj-data) is missing`);
+      console.warn(`skipping: ${beta} (Debian proj-data) is not installed`);
+      return;
+    }
+    const out = join(dir, 'dhdn');
+    const withGrid = capture();
+    const options = { ...base, to: 'csv' as const, crs: 'EPSG:31467', out };
+    expect(await runConvert(['csv-plain-decimal.csv'], { ...options, grid: [beta] }, withGrid, READ_IN)).toBe(0);
+    expect((JSON.parse(withGrid.out()) as ConvertFileReport[])[0]?.crs?.method).toBe('proj4-with-grid');
+    const fallback = capture();
+    expect(await runConvert(['csv-plain-decimal.csv'], { ...options, force: true }, fallback, READ_IN)).toBe(0);
+    expect((JSON.parse(fallback.out()) as ConvertFileReport[])[0]?.crs?.method).toBe('helmert-fallback');
+    const missing = capture();
+    expect(await runConvert(['csv-plain-decimal.csv'], { ...options, grid: ['nope.gsb'] }, missing, READ_IN)).toBe(2);
+    expect(missing.err()).toMatch(/--grid nope\.gsb: cannot read/);
+  });
+});

@@ -1,5 +1,5 @@
 import { readFile } from 'node:fs/promises';
-import { resolve as resolvePath } from 'node:path';
+import { basename, resolve as resolvePath } from 'node:path';
 import {
   type AuditProfile,
   InvalidArgumentError as CoreInvalidArgumentError,
@@ -49,6 +49,8 @@ export interface ConvertOptions extends CommonOptions {
   setup?: string;
   /** Seconds without a fix that start a new segment. */
   gap?: number;
+  /** NTv2 grid files for the output CRS's datum shift (instead of a Helmert fallback). */
+  grid?: string[];
 }
 
 /** What `--json` prints for one input. */
@@ -84,7 +86,8 @@ Examples:
 GPX, GeoJSON and KML are always WGS 84 longitude/latitude (their standards say so). CSV keeps
 lat/lon and, with --crs, adds easting_m/northing_m in that CRS (utm: the zone of the data's centre,
 kept for the whole file). A CRS whose datum grid is not bundled (EPSG:27700 without OSTN15) uses a
-documented Helmert shift and the report says so with its accuracy.
+documented Helmert shift and the report says so with its accuracy; --grid <file.gsb> supplies
+the grid instead.
 
 With one input and no --out the converted file goes to standard output. --json prints an array with
 one object per input: file, ok, error, format, to, fixCount, waypointCount, rejectionCount,
@@ -104,6 +107,7 @@ export const registerConvert: RegisterCommand = (program, context) => {
       'start a new segment where fixes are more than this many seconds apart',
       parsePositiveNumber,
     )
+    .option('--grid <files...>', 'NTv2 grid files (.gsb) for the --crs datum shift, e.g. OSTN15_NTv2_OSGBtoETRS.gsb')
     .option('--clean', 'drop the fixes the audit flags before writing', false)
     .option(
       '--profile <name>',
@@ -143,13 +147,21 @@ export async function runConvert(
   let setup: unknown;
   let cleanProfile: ConvertTaskPayload['cleanProfile'];
   let crs = options.crs;
+  const grids: Record<string, Uint8Array> = {};
   try {
     const { config } = await loadConfig(options.config, cwd);
     crs ??= options.to === 'csv' ? config.defaults?.crs : undefined;
     if (crs !== undefined && options.to !== 'csv')
       throw new UsageProblem('--crs applies to --to csv only (GPX, GeoJSON and KML are always WGS 84)');
+    for (const file of options.grid ?? []) {
+      try {
+        grids[basename(file)] = new Uint8Array(await readFile(resolvePath(cwd, file)));
+      } catch {
+        throw new UsageProblem(`--grid ${file}: cannot read the file`);
+      }
+    }
     // Checked here so a bad CRS is a usage error before any file is read.
-    if (crs !== undefined && crs.toLowerCase() !== 'utm') resolveCrs(crs);
+    if (crs !== undefined && crs.toLowerCase() !== 'utm') resolveCrs(crs, { grids });
     if (options.clean) {
       const userProfiles: Record<string, AuditProfile> = parseUserProfiles(config.profiles);
       const name = options.profile ?? config.defaults?.profile ?? 'inspection-rov';
@@ -212,6 +224,7 @@ export async function runConvert(
           to: options.to,
           nowMs,
           ...(options.gap === undefined ? {} : { gapMs: options.gap * 1000 }),
+          ...(Object.keys(grids).length === 0 ? {} : { grids }),
           ...(crs === undefined ? {} : { crs }),
           ...(cleanProfile === undefined ? {} : { cleanProfile }),
           ...(setup === undefined ? {} : { setup }),
@@ -281,6 +294,7 @@ export async function runConvert(
       crs: crs ?? null,
       clean: cleanProfile?.name ?? null,
       gapS: options.gap ?? null,
+      grids: Object.keys(grids),
       setup: setup ?? null,
       read: readOptions,
     });
