@@ -49,7 +49,7 @@ export interface AuditContext {
   /** Per-fix bit set of the checks that flagged the fix (see `FLAG_BITS`). */
   flags: Uint16Array;
   /** Values several checks need, computed by the first that asks. */
-  cache: { slantRangesM?: Float64Array };
+  cache: { slantRangesM?: Float64Array; measured?: Float64Array };
 }
 
 /** Whether a WGS 84 position could be real: finite, in range and not the 0,0 placeholder many loggers write. */

@@ -1,6 +1,7 @@
 import type { AuditContext } from '../audit-context.js';
 import type { Finding } from '../finding.js';
 import { findingsFromRuns, fixesDo, formatValue } from '../findings-from-runs.js';
+import { measuredBuffer } from '../measured-buffer.js';
 import { shareAboveSurface } from './check-depth-sign.js';
 
 /**
@@ -13,7 +14,7 @@ export function checkAboveSurface(context: AuditContext): Finding[] {
   const { n, profile } = context;
   if (shareAboveSurface(context) > 0.5) return [];
   const depth = context.track.columns.depthM;
-  const measured = new Float64Array(n).fill(Number.NaN);
+  const measured = measuredBuffer(context);
   for (let i = 0; i < n; i++) {
     const d = depth[i] as number;
     if (d < -profile.aboveSurfaceToleranceM) measured[i] = -d;

@@ -2,6 +2,7 @@ import type { AuditContext } from '../audit-context.js';
 import { NEIGHBOUR_HALF_WIDTH, SPREAD_HALF_WIDTH } from '../audit-context.js';
 import type { Finding } from '../finding.js';
 import { findingsFromRuns, fixCount, formatValue } from '../findings-from-runs.js';
+import { measuredBuffer } from '../measured-buffer.js';
 import { localMedian, neighbourMedian } from '../robust-window.js';
 
 /**
@@ -16,7 +17,7 @@ export function checkDepthJumps(context: AuditContext): Finding[] {
   const median = neighbourMedian(depthM, NEIGHBOUR_HALF_WIDTH, new Float64Array(n));
   const residual = new Float64Array(n);
   for (let i = 0; i < n; i++) residual[i] = Math.abs((depthM[i] as number) - (median[i] as number));
-  const measured = new Float64Array(n).fill(Number.NaN);
+  const measured = measuredBuffer(context);
   for (let i = 0; i < n; i++) {
     const r = residual[i] as number;
     if (!(r > profile.depthJumpFloorM)) continue;

@@ -1,6 +1,7 @@
 import type { AuditContext } from '../audit-context.js';
 import type { Finding } from '../finding.js';
 import { findingsFromRuns, formatValue } from '../findings-from-runs.js';
+import { measuredBuffer } from '../measured-buffer.js';
 import { findBaselinePartners } from './check-implied-speed.js';
 
 /**
@@ -12,7 +13,7 @@ export function checkImpliedAcceleration(context: AuditContext): Finding[] {
   const { n, profile, medianEastM, medianNorthM } = context;
   const time = context.track.columns.timeMs;
   const partner = findBaselinePartners(context, profile.speedBaselineS / 2);
-  const measured = new Float64Array(n).fill(Number.NaN);
+  const measured = measuredBuffer(context);
   const spanEnd = new Int32Array(n).fill(-1);
   for (let i = 0; i < n; i++) {
     const j = partner[i] as number;

@@ -1,6 +1,7 @@
 import type { AuditContext } from '../audit-context.js';
 import type { Finding } from '../finding.js';
 import { findingsFromRuns, formatValue } from '../findings-from-runs.js';
+import { measuredBuffer } from '../measured-buffer.js';
 
 /**
  * For each fix i, the first later fix at least `baselineS` later whose robust local position is
@@ -34,7 +35,7 @@ export function checkImpliedSpeed(context: AuditContext): Finding[] {
   const { n, profile, medianEastM, medianNorthM } = context;
   const time = context.track.columns.timeMs;
   const partner = findBaselinePartners(context, profile.speedBaselineS);
-  const measured = new Float64Array(n).fill(Number.NaN);
+  const measured = measuredBuffer(context);
   for (let i = 0; i < n; i++) {
     const j = partner[i] as number;
     if (j < 0) continue;

@@ -1,6 +1,7 @@
 import type { AuditContext } from '../audit-context.js';
 import type { Finding } from '../finding.js';
 import { findingsFromRuns, fixCount } from '../findings-from-runs.js';
+import { measuredBuffer } from '../measured-buffer.js';
 
 /**
  * Impossible coordinates: a fix without a position, outside latitude ±90° or longitude ±180°, or
@@ -11,7 +12,7 @@ import { findingsFromRuns, fixCount } from '../findings-from-runs.js';
 export function checkImpossiblePositions(context: AuditContext): Finding[] {
   const { n, plausible } = context;
   const { latDeg, lonDeg } = context.track.columns;
-  const measured = new Float64Array(n).fill(Number.NaN);
+  const measured = measuredBuffer(context);
   for (let i = 0; i < n; i++) {
     if (plausible[i] === 1) continue;
     const lat = latDeg[i] as number;

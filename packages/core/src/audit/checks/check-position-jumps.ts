@@ -1,6 +1,7 @@
 import { type AuditContext, SPREAD_HALF_WIDTH } from '../audit-context.js';
 import type { Finding } from '../finding.js';
 import { findingsFromRuns, fixesDo, formatValue } from '../findings-from-runs.js';
+import { measuredBuffer } from '../measured-buffer.js';
 import { localMedian } from '../robust-window.js';
 
 /**
@@ -13,7 +14,7 @@ import { localMedian } from '../robust-window.js';
  */
 export function checkPositionJumps(context: AuditContext): Finding[] {
   const { n, profile, residualM } = context;
-  const measured = new Float64Array(n).fill(Number.NaN);
+  const measured = measuredBuffer(context);
   let worstLimit = profile.jumpFloorM;
   for (let i = 0; i < n; i++) {
     const r = residualM[i] as number;

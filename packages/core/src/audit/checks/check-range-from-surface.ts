@@ -2,6 +2,7 @@ import type { AuditContext } from '../audit-context.js';
 import { estimateSlantRanges } from '../estimate-slant-ranges.js';
 import type { Finding } from '../finding.js';
 import { findingsFromRuns, fixesDo, formatValue } from '../findings-from-runs.js';
+import { measuredBuffer } from '../measured-buffer.js';
 
 /**
  * Vehicle beyond acoustic or tether range: a fix whose slant range from the surface unit (logged,
@@ -13,7 +14,7 @@ export function checkRangeFromSurface(context: AuditContext): Finding[] {
   const { n } = context;
   const limit = context.setup.maxRangeM ?? context.profile.maxRangeM;
   const ranges = estimateSlantRanges(context);
-  const measured = new Float64Array(n).fill(Number.NaN);
+  const measured = measuredBuffer(context);
   for (let i = 0; i < n; i++) if ((ranges[i] as number) > limit) measured[i] = ranges[i] as number;
   return findingsFromRuns(context, 'out-of-reach', measured, {
     limit,

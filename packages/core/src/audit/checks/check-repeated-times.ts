@@ -1,6 +1,7 @@
 import type { AuditContext } from '../audit-context.js';
 import type { Finding } from '../finding.js';
 import { findingsFromRuns, fixesDo } from '../findings-from-runs.js';
+import { measuredBuffer } from '../measured-buffer.js';
 
 /**
  * Repeated timestamps: a fix with the same time as the fix before it is flagged; each run is a
@@ -10,7 +11,7 @@ import { findingsFromRuns, fixesDo } from '../findings-from-runs.js';
 export function checkRepeatedTimes(context: AuditContext): Finding[] {
   const { n } = context;
   const time = context.track.columns.timeMs;
-  const measured = new Float64Array(n).fill(Number.NaN);
+  const measured = measuredBuffer(context);
   let sameCount = 1;
   for (let i = 1; i < n; i++) {
     if (time[i] === time[i - 1]) {

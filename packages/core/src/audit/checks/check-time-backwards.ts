@@ -1,6 +1,7 @@
 import type { AuditContext } from '../audit-context.js';
 import type { Finding } from '../finding.js';
 import { findingsFromRuns, fixCount, formatValue } from '../findings-from-runs.js';
+import { measuredBuffer } from '../measured-buffer.js';
 
 /**
  * Time going backwards: a fix stamped earlier than the latest time seen before it. The fix is
@@ -10,7 +11,7 @@ import { findingsFromRuns, fixCount, formatValue } from '../findings-from-runs.j
 export function checkTimeBackwards(context: AuditContext): Finding[] {
   const { n } = context;
   const time = context.track.columns.timeMs;
-  const measured = new Float64Array(n).fill(Number.NaN);
+  const measured = measuredBuffer(context);
   let latest = Number.NEGATIVE_INFINITY;
   for (let i = 0; i < n; i++) {
     const t = time[i] as number;
