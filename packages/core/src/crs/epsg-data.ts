@@ -23,7 +23,12 @@ export interface EpsgRecord {
   accuracy?: number | null;
 }
 
-const requireFromHere = createRequire(import.meta.url);
+// Created on first use, so merely importing core (a browser bundle, for one) never needs node:module.
+let requireFromHere: NodeJS.Require | undefined;
+function packageRequire(): NodeJS.Require {
+  requireFromHere ??= createRequire(import.meta.url);
+  return requireFromHere;
+}
 const entryCache = new Map<string, EpsgRecord | null>();
 let fullIndex: EpsgRecord[] | undefined;
 
@@ -34,7 +39,7 @@ export function loadEpsgRecord(code: string): EpsgRecord | undefined {
   if (cached !== undefined) return cached ?? undefined;
   let record: EpsgRecord | null = null;
   try {
-    record = requireFromHere(`epsg-index/s/${code}.json`) as EpsgRecord;
+    record = packageRequire()(`epsg-index/s/${code}.json`) as EpsgRecord;
   } catch {
     record = null;
   }
@@ -45,7 +50,7 @@ export function loadEpsgRecord(code: string): EpsgRecord | undefined {
 /** Loads (once) and returns every EPSG record, for search and area-of-use queries. */
 export function loadEpsgIndex(): readonly EpsgRecord[] {
   if (fullIndex === undefined) {
-    const all = requireFromHere('epsg-index/all.json') as Record<string, EpsgRecord>;
+    const all = packageRequire()('epsg-index/all.json') as Record<string, EpsgRecord>;
     fullIndex = Object.values(all);
   }
   return fullIndex;
