@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { PRESET_PROFILES } from './audit-profile.js';
 import { auditTrack } from './audit-track.js';
 import type { CheckName } from './finding.js';
-import { buildTestTrack, type LocalFix, squarePatrol } from './test-track.js';
+import { buildTestTrack, createNormalSampler, type LocalFix, squarePatrol } from './test-track.js';
 
 const rov = PRESET_PROFILES['inspection-rov'];
 
@@ -191,5 +191,49 @@ describe('auditTrack', () => {
     const result = auditTrack(buildTestTrack([]), { profile: rov });
     expect(result.findings.map((f) => f.check)).toEqual(['low-fix-rate']);
     expect(result.verdict).toBe('warn');
+  });
+});
+
+describe('auditTrack on hostile tracks', () => {
+  it('never throws and keeps its invariants on tracks full of gaps, NaN, repeats and wild values', async () => {
+    const { smoothTrack } = await import('../clean/smooth-track.js');
+    const { splitDives } = await import('../clean/split-dives.js');
+    const normal = createNormalSampler(99);
+    for (let round = 0; round < 30; round++) {
+      const count = Math.floor(Math.abs(normal()) * 300);
+      const fixes: LocalFix[] = [];
+      let t = 0;
+      for (let i = 0; i < count; i++) {
+        const r = normal();
+        t += r > 2 ? 500 : r < -2 ? -3 : r < -1.8 ? 0 : 1;
+        fixes.push({
+          timeS: t,
+          eastM: normal() * (r > 1.5 ? 5000 : 20),
+          northM: normal() * 20,
+          depthM: r > 1.7 ? Number.NaN : normal() * 30,
+          extra: { slantRangeM: r < -1.5 ? Number.NaN : Math.abs(normal()) * 500 },
+        });
+      }
+      const track = buildTestTrack(fixes, { withSurface: round % 2 === 0 });
+      if (count > 3) {
+        track.columns.latDeg[1] = Number.NaN;
+        track.columns.lonDeg[2] = 200;
+      }
+      const result = auditTrack(track, { profile: rov, setup: { surfaceStationary: true, transceiverDraftM: 1 } });
+      for (const f of result.findings) {
+        expect(f.startIndex).toBeGreaterThanOrEqual(0);
+        expect(f.endIndex).toBeLessThan(Math.max(1, track.length));
+        expect(f.message.length).toBeGreaterThan(0);
+      }
+      expect(result.flags.length).toBe(track.length);
+      const smoothed = smoothTrack(track, { accelerationSigmaMps2: 0.5, flags: result.flags });
+      expect(smoothed.track.length).toBe(track.length);
+      const split = splitDives(track, { splitGapS: 300, surfaceDepthM: 1, surfaceIntervalS: 60 });
+      const covered = [...split.dives, ...split.surfaceIntervals].reduce(
+        (n, s) => n + s.endIndex - s.startIndex + 1,
+        0,
+      );
+      expect(covered).toBe(track.length);
+    }
   });
 });
