@@ -71,21 +71,36 @@ export interface BuiltApp {
   routes: readonly RouteSpec[];
 }
 
-function limiter(setting: RateLimitSetting, what: string): RequestHandler {
+function limiter(setting: RateLimitSetting, what: string, per: 'address' | 'account' = 'address'): RequestHandler {
   return rateLimit({
     windowMs: setting.windowMs,
     limit: setting.limit,
+    // Per account: the e-mail address in the body, so many addresses cannot share out guesses at one account.
+    ...(per === 'account'
+      ? {
+          keyGenerator: (req) => {
+            const email = (req.body as { email?: unknown } | undefined)?.email;
+            return `account:${typeof email === 'string' ? email.trim().toLowerCase() : ''}`;
+          },
+        }
+      : {}),
     standardHeaders: 'draft-8',
     legacyHeaders: false,
     handler: (_req, _res, next) => {
       next(
         new AppError(
           'too-many-requests',
-          `Too many ${what} attempts from this address; wait ${Math.ceil(setting.windowMs / 60000)} minutes and try again.`,
+          `Too many ${what} attempts ${per === 'account' ? 'for this account' : 'from this address'}; wait ${Math.ceil(setting.windowMs / 60000)} minutes and try again.`,
         ),
       );
     },
   });
+}
+
+function chain(first: RequestHandler, second: RequestHandler): RequestHandler {
+  return (req, res, next) => {
+    first(req, res, (error?: unknown) => (error ? next(error) : second(req, res, next)));
+  };
 }
 
 /** Builds the Express app: the versioned API under `/api/v1`, its docs, the web site beside it. */
@@ -102,9 +117,16 @@ export function buildApp(deps: AppDependencies): BuiltApp {
     now: deps.now ?? (() => new Date()),
   };
   // Common practice for sign-in throttling: a handful of attempts per address per quarter hour.
+  const signInSetting = deps.rateLimits?.signIn ?? { windowMs: 15 * 60_000, limit: 10 };
+  const resetSetting = deps.rateLimits?.reset ?? { windowMs: 15 * 60_000, limit: 10 };
+  const signInByAddress = limiter(signInSetting, 'sign-in');
+  const signInByAccount = limiter(signInSetting, 'sign-in', 'account');
+  const resetByAddress = limiter(resetSetting, 'password-reset or invitation');
+  const resetByAccount = limiter(resetSetting, 'password-reset', 'account');
   const limits = {
-    signIn: limiter(deps.rateLimits?.signIn ?? { windowMs: 15 * 60_000, limit: 10 }, 'sign-in'),
-    reset: limiter(deps.rateLimits?.reset ?? { windowMs: 15 * 60_000, limit: 10 }, 'password-reset or invitation'),
+    signIn: chain(signInByAddress, signInByAccount),
+    reset: resetByAddress,
+    resetRequest: chain(resetByAddress, resetByAccount),
   };
 
   const routes: RouteSpec[] = [

@@ -23,7 +23,9 @@ try {
 
 const logger = createLogger(config.logLevel);
 const db = createDatabase(config.databaseUrl);
-const sessions = createPgSessionStore(config.databaseUrl);
+const sessions = createPgSessionStore(config.databaseUrl, {
+  onError: (error) => logger.warn({ err: error }, 'session store: an idle database connection failed'),
+});
 
 // Without SMTP_URL (development), mail goes to a local fake SMTP server whose mailbox admins can read.
 let fakeMailbox: FakeSmtpServer | undefined;

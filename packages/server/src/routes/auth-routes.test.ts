@@ -100,6 +100,19 @@ describe('sign-in rate limit', () => {
     await database.drop();
   });
 
+  it('counts guesses at one account across client addresses', async () => {
+    // X-Forwarded-For counts because the app trusts its loopback proxy: each request looks like a new address.
+    const attempt = (i: number) =>
+      request(testApp.app)
+        .post('/api/v1/session')
+        .set('X-Forwarded-For', `198.51.100.${i}`)
+        .send({ email: 'Target@hollowtide.example', password: `guess ${i}` });
+    for (let i = 0; i < 3; i++) expect((await attempt(i)).status).toBe(401);
+    const limited = await attempt(99);
+    expect(limited.status).toBe(429);
+    expect(limited.body.error.message).toMatch(/for this account/);
+  });
+
   it('answers 429 with the one error body once the limit is used up', async () => {
     const attempt = () =>
       request(testApp.app).post('/api/v1/session').send({ email: 'nobody@hollowtide.example', password: 'guess' });

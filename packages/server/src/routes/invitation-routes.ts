@@ -17,7 +17,10 @@ const InvitationSchema = z.object({
 });
 
 /** Invitations and password resets: single-use links sent by e-mail. */
-export function createInvitationRoutes(ctx: ServiceContext, limits: { reset: RequestHandler }): RouteSpec[] {
+export function createInvitationRoutes(
+  ctx: ServiceContext,
+  limits: { reset: RequestHandler; resetRequest: RequestHandler },
+): RouteSpec[] {
   return [
     defineRoute({
       method: 'post',
@@ -101,7 +104,7 @@ export function createInvitationRoutes(ctx: ServiceContext, limits: { reset: Req
       summary: 'Ask for a password-reset link by e-mail; the answer is the same whether the address is known or not',
       tag: 'Sign-in',
       access: 'public',
-      before: [limits.reset],
+      before: [limits.resetRequest],
       body: z.object({ email: EmailSchema }),
       responses: { 202: { description: 'If the address is known, a link is on its way' } },
       async handler({ body }, _req, res) {

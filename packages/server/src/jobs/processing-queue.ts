@@ -1,0 +1,135 @@
+import PgBoss from 'pg-boss';
+import type { Logger } from 'pino';
+import {
+  PermanentProcessingError,
+  type ProcessingDeps,
+  type ProcessingHooks,
+  performRun,
+} from '../services/processing-service.js';
+import type { RunRecord } from '../stores/processing-run-store.js';
+
+/** The pg-boss queue processing runs go through. */
+export const PROCESSING_QUEUE = 'leadline_processing';
+
+/** What a processing job carries. */
+export interface ProcessingJobData {
+  runId: string;
+  organisationId: string;
+}
+
+/** Retries and expiry of processing jobs. */
+export interface ProcessingJobSettings {
+  /** Further attempts after the first fails (default 3). */
+  retryLimit: number;
+  /** Seconds before the first retry; doubled each time with `retryBackoff` (default 5). */
+  retryDelayS: number;
+  /** A job active longer than this is taken as lost (its worker died) and retried, seconds (default 600). */
+  expireInS: number;
+}
+
+/** Sends runs to the workers. */
+export interface ProcessingQueue {
+  enqueue(run: RunRecord, organisationId: string): Promise<void>;
+}
+
+const DEFAULT_SETTINGS: ProcessingJobSettings = { retryLimit: 3, retryDelayS: 5, expireInS: 600 };
+
+/** A started pg-boss on the application's database (schema `pgboss`), with the processing queue created. */
+export async function startJobBoss(
+  databaseUrl: string,
+  options: { logger?: Logger; maintenanceIntervalS?: number } = {},
+): Promise<PgBoss> {
+  const boss = new PgBoss({
+    connectionString: databaseUrl,
+    max: 4,
+    application_name: 'leadline-jobs',
+    ...(options.maintenanceIntervalS === undefined ? {} : { maintenanceIntervalSeconds: options.maintenanceIntervalS }),
+  });
+  boss.on('error', (error) => options.logger?.error({ err: error }, 'job queue error'));
+  await boss.start();
+  await boss.createQueue(PROCESSING_QUEUE);
+  return boss;
+}
+
+/**
+ * The queue side: marks nothing itself, only sends `{ runId, organisationId }` with the retry and
+ * expiry settings, records the job id on the run and wakes a worker in this process at once.
+ */
+export function createProcessingQueue(
+  boss: PgBoss,
+  store: { setJob(runId: string, jobId: string): Promise<void> },
+  settings: Partial<ProcessingJobSettings> = {},
+  wake?: () => void,
+): ProcessingQueue {
+  const s = { ...DEFAULT_SETTINGS, ...settings };
+  return {
+    async enqueue(run, organisationId) {
+      const data: ProcessingJobData = { runId: run.id, organisationId };
+      const jobId = await boss.send(PROCESSING_QUEUE, data, {
+        retryLimit: s.retryLimit,
+        retryDelay: s.retryDelayS,
+        retryBackoff: true,
+        expireInSeconds: s.expireInS,
+      });
+      if (jobId !== null) await store.setJob(run.id, jobId);
+      wake?.();
+    },
+  };
+}
+
+/** A running worker. */
+export interface ProcessingWorker {
+  /** Wakes the worker to fetch at once (after a send from the same process). */
+  wake(): void;
+  stop(): Promise<void>;
+}
+
+/**
+ * Works processing jobs: one run at a time per worker. A permanent failure (unreadable log,
+ * unknown profile) fails the run at once with its reason; any other error is retried with backoff
+ * by pg-boss, the run going back to `queued` with the reason until the last attempt fails it.
+ * Runs left `queued` without a job (the server stopped between storing and sending) are sent again.
+ */
+export async function startProcessingWorker(
+  boss: PgBoss,
+  deps: ProcessingDeps,
+  options: {
+    logger?: Logger;
+    hooks?: ProcessingHooks;
+    pollingIntervalS?: number;
+    settings?: Partial<ProcessingJobSettings>;
+  } = {},
+): Promise<ProcessingWorker> {
+  const log = options.logger;
+  const workerId = await boss.work<ProcessingJobData>(
+    PROCESSING_QUEUE,
+    { includeMetadata: true, batchSize: 1, pollingIntervalSeconds: options.pollingIntervalS ?? 2 },
+    async (jobs) => {
+      for (const job of jobs) {
+        const { runId, organisationId } = job.data;
+        try {
+          const started = Date.now();
+          const outcome = await performRun(deps, runId, organisationId, options.hooks);
+          log?.info({ runId, outcome, ms: Date.now() - started }, 'processing run finished');
+        } catch (error) {
+          const message = error instanceof Error ? error.message : String(error);
+          if (error instanceof PermanentProcessingError) {
+            await deps.runs.fail(runId, message);
+            log?.warn({ runId, reason: message }, 'processing run failed');
+            continue;
+          }
+          if (job.retryCount >= job.retryLimit) await deps.runs.fail(runId, `gave up after ${job.retryCount + 1} attempts: ${message}`);
+          else await deps.runs.requeue(runId, `attempt ${job.retryCount + 1} failed, will retry: ${message}`);
+          log?.error({ runId, err: error }, 'processing attempt failed');
+          throw error;
+        }
+      }
+    },
+  );
+  const queue = createProcessingQueue(boss, deps.runs, options.settings);
+  for (const { run, organisationId } of await deps.runs.queuedWithoutJob()) await queue.enqueue(run, organisationId);
+  return {
+    wake: () => boss.notifyWorker(workerId),
+    stop: () => boss.offWork(PROCESSING_QUEUE),
+  };
+}
