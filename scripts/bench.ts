@@ -31,7 +31,7 @@ const benchmarks: Array<{ name: string; run: () => Promise<string> }> = [];
   };
   const rate = (t: { cpuMs: number; wallMs: number }) =>
     `${(((n / t.cpuMs) * 1000) / 1e6).toFixed(2)} M points/s per CPU second (${t.cpuMs.toFixed(0)} ms CPU, ${t.wallMs.toFixed(0)} ms wall for 1 M, best of 3)`;
-  for (const code of ['EPSG:32632', 'EPSG:3857', 'EPSG:27700']) {
+  for (const code of ['EPSG:32632', 'EPSG:3857', 'EPSG:3035', 'EPSG:27700']) {
     benchmarks.push({
       name: `reproject 1 M WGS 84 points to ${code}`,
       run: async () => {

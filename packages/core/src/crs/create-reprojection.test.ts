@@ -68,6 +68,7 @@ describe('createReprojection', () => {
 
   it('Popular Visualisation Pseudo-Mercator 1024 through EPSG:3857 (EPSG method 1024 record, check-values.md §1.1)', () => {
     const crs = resolveCrs('EPSG:3857');
+    expect(createReprojection(crs).engine).toBe('mercator');
     const [e, n] = forward1(crs, dms(24, 22, 54.433), dms(100, 20, 0, true));
     expect(Math.abs(e - -11169055.58)).toBeLessThanOrEqual(HALF_CM);
     expect(Math.abs(n - 2800000.0)).toBeLessThanOrEqual(HALF_CM);

@@ -5,6 +5,8 @@
  * fast path of reprojection. Columnar and allocation-free in the loops.
  */
 
+import { createConformalLatitude } from './conformal-latitude.js';
+
 /** Parameters of one Transverse Mercator projection. */
 export interface TransverseMercatorParams {
   /** Semi-major axis in metres. */
@@ -47,7 +49,6 @@ export function createTransverseMercator(params: TransverseMercatorParams): Tran
   const n5 = n4 * n;
   const n6 = n5 * n;
   const e2 = f * (2 - f);
-  const e = Math.sqrt(e2);
   const rectifyingRadius = (a / (1 + n)) * (1 + n2 / 4 + n4 / 64 + n6 / 256);
   const alpha = [
     n / 2 - (2 * n2) / 3 + (5 * n3) / 16 + (41 * n4) / 180 - (127 * n5) / 288 + (7891 * n6) / 37800,
@@ -65,61 +66,62 @@ export function createTransverseMercator(params: TransverseMercatorParams): Tran
     (4583 * n5) / 161280 - (108847 * n6) / 3991680,
     (20648693 * n6) / 638668800,
   ];
-  const [a1, a2, a3, a4, a5, a6] = alpha as [number, number, number, number, number, number];
-  const [b1, b2, b3, b4, b5, b6] = beta as [number, number, number, number, number, number];
   const lon0 = params.lon0Deg * DEG;
   const scale = k0 * rectifyingRadius;
 
-  // Conformal latitude tangent from the geodetic latitude tangent (Karney 2011, eqs. 7–9).
-  function conformalTan(tau: number): number {
-    const sigma = Math.sinh(e * Math.atanh((e * tau) / Math.sqrt(1 + tau * tau)));
-    return tau * Math.sqrt(1 + sigma * sigma) - sigma * Math.sqrt(1 + tau * tau);
-  }
+  const { conformalTan, geodeticTan } = createConformalLatitude(e2);
 
-  // Inverse of conformalTan by Newton's method (Karney 2011, eqs. 19–21); 2–3 iterations suffice.
-  function geodeticTan(tauPrime: number): number {
-    let tau = tauPrime;
-    for (let i = 0; i < 5; i++) {
-      const tp = conformalTan(tau);
-      const dTau =
-        ((tauPrime - tp) / Math.sqrt(1 + tp * tp)) *
-        ((1 + (1 - e2) * tau * tau) / ((1 - e2) * Math.sqrt(1 + tau * tau)));
-      tau += dTau;
-      if (Math.abs(dTau) < 1e-14 * Math.max(1, Math.abs(tau))) break;
+  // Σ c_j sin(2jζ) for complex ζ = ξ + iη by Clenshaw summation (Karney 2011, eq. 41): four
+  // elementary functions per point instead of twenty-four. Writes the real and imaginary parts.
+  const sum = new Float64Array(2);
+  function clenshaw(c: readonly number[], sin2Xi: number, cos2Xi: number, sinh2Eta: number, cosh2Eta: number): void {
+    const cr = 2 * cos2Xi * cosh2Eta;
+    const ci = -2 * sin2Xi * sinh2Eta;
+    let y1r = 0;
+    let y1i = 0;
+    let y2r = 0;
+    let y2i = 0;
+    for (let j = c.length - 1; j >= 0; j--) {
+      const y0r = (c[j] as number) + cr * y1r - ci * y1i - y2r;
+      const y0i = cr * y1i + ci * y1r - y2i;
+      y2r = y1r;
+      y2i = y1i;
+      y1r = y0r;
+      y1i = y0i;
     }
-    return tau;
+    const sr = sin2Xi * cosh2Eta;
+    const si = cos2Xi * sinh2Eta;
+    sum[0] = y1r * sr - y1i * si;
+    sum[1] = y1r * si + y1i * sr;
   }
 
-  // Northing of the latitude of origin on the central meridian, subtracted so lat0 maps to FN.
   let northingOfOrigin = 0;
-  const out0 = new Float64Array(2);
   function rawForward(latDeg: number, lonDeg: number, out: Float64Array): void {
     let dLon = lonDeg * DEG - lon0;
     // Keep the longitude difference in [-π, π) so a frame near the antimeridian works.
-    dLon -= 2 * Math.PI * Math.floor((dLon + Math.PI) / (2 * Math.PI));
-    const phi = latDeg * DEG;
-    const tauP = conformalTan(Math.tan(phi));
-    const xiP = Math.atan2(tauP, Math.cos(dLon));
-    const etaP = Math.asinh(Math.sin(dLon) / Math.sqrt(tauP * tauP + Math.cos(dLon) ** 2));
-    const xi =
-      xiP +
-      a1 * Math.sin(2 * xiP) * Math.cosh(2 * etaP) +
-      a2 * Math.sin(4 * xiP) * Math.cosh(4 * etaP) +
-      a3 * Math.sin(6 * xiP) * Math.cosh(6 * etaP) +
-      a4 * Math.sin(8 * xiP) * Math.cosh(8 * etaP) +
-      a5 * Math.sin(10 * xiP) * Math.cosh(10 * etaP) +
-      a6 * Math.sin(12 * xiP) * Math.cosh(12 * etaP);
-    const eta =
-      etaP +
-      a1 * Math.cos(2 * xiP) * Math.sinh(2 * etaP) +
-      a2 * Math.cos(4 * xiP) * Math.sinh(4 * etaP) +
-      a3 * Math.cos(6 * xiP) * Math.sinh(6 * etaP) +
-      a4 * Math.cos(8 * xiP) * Math.sinh(8 * etaP) +
-      a5 * Math.cos(10 * xiP) * Math.sinh(10 * etaP) +
-      a6 * Math.cos(12 * xiP) * Math.sinh(12 * etaP);
-    out[0] = scale * eta;
-    out[1] = scale * xi;
+    if (dLon < -Math.PI || dLon >= Math.PI) dLon -= 2 * Math.PI * Math.floor((dLon + Math.PI) / (2 * Math.PI));
+    const tauP = conformalTan(Math.tan(latDeg * DEG));
+    const cosLon = Math.cos(dLon);
+    const sinLon = Math.sin(dLon);
+    const r = Math.sqrt(tauP * tauP + cosLon * cosLon);
+    const xiP = Math.atan2(tauP, cosLon);
+    const sinhEtaP = sinLon / r;
+    const etaP = Math.asinh(sinhEtaP);
+    // Double-angle values from the half-angle ones, without more elementary functions.
+    const sinXi = tauP / r;
+    const cosXi = cosLon / r;
+    const coshEtaP = Math.sqrt(1 + sinhEtaP * sinhEtaP);
+    clenshaw(
+      alpha,
+      2 * sinXi * cosXi,
+      cosXi * cosXi - sinXi * sinXi,
+      2 * sinhEtaP * coshEtaP,
+      coshEtaP * coshEtaP + sinhEtaP * sinhEtaP,
+    );
+    out[0] = scale * (etaP + (sum[1] as number));
+    out[1] = scale * (xiP + (sum[0] as number));
   }
+  const out0 = new Float64Array(2);
   rawForward(params.lat0Deg, params.lon0Deg, out0);
   northingOfOrigin = out0[1] as number;
 
@@ -129,32 +131,21 @@ export function createTransverseMercator(params: TransverseMercatorParams): Tran
     out[1] = (out[1] as number) - northingOfOrigin + falseNorthingM;
   }
 
+  const minusBeta = beta.map((b) => -b);
   function inversePoint(eastingM: number, northingM: number, out: Float64Array): void {
     const xi = (northingM - falseNorthingM + northingOfOrigin) / scale;
     const eta = (eastingM - falseEastingM) / scale;
-    const xiP =
-      xi -
-      b1 * Math.sin(2 * xi) * Math.cosh(2 * eta) -
-      b2 * Math.sin(4 * xi) * Math.cosh(4 * eta) -
-      b3 * Math.sin(6 * xi) * Math.cosh(6 * eta) -
-      b4 * Math.sin(8 * xi) * Math.cosh(8 * eta) -
-      b5 * Math.sin(10 * xi) * Math.cosh(10 * eta) -
-      b6 * Math.sin(12 * xi) * Math.cosh(12 * eta);
-    const etaP =
-      eta -
-      b1 * Math.cos(2 * xi) * Math.sinh(2 * eta) -
-      b2 * Math.cos(4 * xi) * Math.sinh(4 * eta) -
-      b3 * Math.cos(6 * xi) * Math.sinh(6 * eta) -
-      b4 * Math.cos(8 * xi) * Math.sinh(8 * eta) -
-      b5 * Math.cos(10 * xi) * Math.sinh(10 * eta) -
-      b6 * Math.cos(12 * xi) * Math.sinh(12 * eta);
+    const e2Eta = Math.exp(2 * eta);
+    clenshaw(minusBeta, Math.sin(2 * xi), Math.cos(2 * xi), (e2Eta - 1 / e2Eta) / 2, (e2Eta + 1 / e2Eta) / 2);
+    const xiP = xi + (sum[0] as number);
+    const etaP = eta + (sum[1] as number);
     const sinhEtaP = Math.sinh(etaP);
     const cosXiP = Math.cos(xiP);
     const tauP = Math.sin(xiP) / Math.sqrt(sinhEtaP * sinhEtaP + cosXiP * cosXiP);
     const tau = geodeticTan(tauP);
     out[0] = Math.atan(tau) / DEG;
     let lonDeg = (lon0 + Math.atan2(sinhEtaP, cosXiP)) / DEG;
-    lonDeg = ((((lonDeg + 180) % 360) + 360) % 360) - 180;
+    if (lonDeg < -180 || lonDeg >= 180) lonDeg = ((((lonDeg + 180) % 360) + 360) % 360) - 180;
     out[1] = lonDeg;
   }
 
