@@ -8,7 +8,15 @@ export interface LogInput {
 }
 
 /** A column-map key: a fix column, or one of the helper columns a tabular log may have. */
-export type ColumnKey = FixColumnName | 'date' | 'time' | 'easting' | 'northing' | 'elevationM';
+export type ColumnKey =
+  | FixColumnName
+  | 'date'
+  | 'time'
+  | 'easting'
+  | 'northing'
+  | 'surfaceEasting'
+  | 'surfaceNorthing'
+  | 'elevationM';
 
 /** How a reader should interpret a log; every field is optional and overrides detection. */
 export interface ReadOptions {

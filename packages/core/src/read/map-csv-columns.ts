@@ -179,9 +179,9 @@ export function guessColumnFromName(header: string): NameGuess | undefined {
     case 'date':
       return guess('date');
     case 'easting':
-      return surface ? undefined : guess('easting');
+      return guess(surface ? 'surfaceEasting' : 'easting');
     case 'northing':
-      return surface ? undefined : guess('northing');
+      return guess(surface ? 'surfaceNorthing' : 'northing');
   }
 }
 
@@ -380,28 +380,27 @@ export function mapCsvColumns(
     if (column.speedUnit !== undefined) entry.form = column.speedUnit;
   }
   // A log whose only positions are surface-qualified is the surface unit's own log.
-  const surfaceOnly =
+  const noVehiclePosition =
     columns.latDeg === undefined &&
     columns.lonDeg === undefined &&
-    columns.surfaceLatDeg !== undefined &&
-    columns.surfaceLonDeg !== undefined;
-  if (surfaceOnly) {
-    const lat = columns.surfaceLatDeg as MappedColumn;
-    const lon = columns.surfaceLonDeg as MappedColumn;
-    columns.latDeg = { ...lat, key: 'latDeg' };
-    columns.lonDeg = { ...lon, key: 'lonDeg' };
-    delete columns.surfaceLatDeg;
-    delete columns.surfaceLonDeg;
-    if (columns.surfaceHeadingDeg !== undefined && columns.headingDeg === undefined) {
-      columns.headingDeg = { ...columns.surfaceHeadingDeg, key: 'headingDeg' };
-      delete columns.surfaceHeadingDeg;
-    }
-    for (const entry of report) {
-      if (entry.target === 'surfaceLatDeg') entry.target = 'latDeg';
-      if (entry.target === 'surfaceLonDeg') entry.target = 'lonDeg';
-      if (entry.target === 'surfaceHeadingDeg' && columns.headingDeg?.index === entry.index - 1)
-        entry.target = 'headingDeg';
-    }
+    columns.easting === undefined &&
+    columns.northing === undefined;
+  const renames: Array<[ColumnKey, ColumnKey]> = [];
+  if (noVehiclePosition && columns.surfaceLatDeg !== undefined && columns.surfaceLonDeg !== undefined) {
+    renames.push(['surfaceLatDeg', 'latDeg'], ['surfaceLonDeg', 'lonDeg']);
+  } else if (noVehiclePosition && columns.surfaceEasting !== undefined && columns.surfaceNorthing !== undefined) {
+    renames.push(['surfaceEasting', 'easting'], ['surfaceNorthing', 'northing']);
+  }
+  const surfaceOnly = renames.length > 0;
+  if (surfaceOnly && columns.surfaceHeadingDeg !== undefined && columns.headingDeg === undefined) {
+    renames.push(['surfaceHeadingDeg', 'headingDeg']);
+  }
+  for (const [from, to] of renames) {
+    const column = columns[from] as MappedColumn;
+    columns[to] = { ...column, key: to };
+    delete columns[from];
+    const entry = report[column.index];
+    if (entry !== undefined) entry.target = to;
   }
   const mapped = report.filter((e) => e.target !== 'unused');
   notes.push(

@@ -83,8 +83,16 @@ export function* readCsvEvents(
   if (layout !== undefined) Object.assign(layout, { delimiter, decimalComma, hasHeader, map });
   const cols = map.columns;
   const projected = cols.latDeg === undefined && cols.easting !== undefined && cols.northing !== undefined;
+  // surface-unit easting/northing beside the vehicle's position fill the surface* columns
+  const surfaceProjected =
+    cols.surfaceLatDeg === undefined && cols.surfaceEasting !== undefined && cols.surfaceNorthing !== undefined;
+  const buffered = projected || (surfaceProjected && options.inputCrs !== undefined);
   // A file named as the surface unit's log is one, unless its columns tell vehicle and surface apart.
-  const hasSurfaceColumns = cols.surfaceLatDeg !== undefined || cols.surfaceLonDeg !== undefined;
+  const hasSurfaceColumns =
+    cols.surfaceLatDeg !== undefined ||
+    cols.surfaceLonDeg !== undefined ||
+    cols.surfaceEasting !== undefined ||
+    cols.surfaceNorthing !== undefined;
   const namedSurface = !hasSurfaceColumns && /(^|[^a-z])(surface|ship|vessel|boat)([^a-z]|$)/i.test(baseName(file));
   const role: TrackRole = options.role ?? (map.surfaceOnly || namedSurface ? 'surface' : 'vehicle');
   const dialect = [
@@ -130,7 +138,12 @@ export function* readCsvEvents(
       kind: 'note',
       text: 'easting/northing columns need an input CRS (inputCrs / --input-crs): every row is rejected',
     };
-  if (projected && options.inputCrs !== undefined) {
+  if (surfaceProjected && !projected && options.inputCrs === undefined)
+    yield {
+      kind: 'note',
+      text: 'surface easting/northing columns need an input CRS (inputCrs / --input-crs): the surface position is left empty',
+    };
+  if ((projected || surfaceProjected) && options.inputCrs !== undefined) {
     // an unknown CRS is the caller's mistake: fail before reading rows (InvalidArgumentError)
     const probe = projectRowsToWgs84(options.inputCrs, []);
     yield { kind: 'note', text: `easting/northing read in ${options.inputCrs}: ${probe.method}` };
@@ -141,12 +154,41 @@ export function* readCsvEvents(
     rejection:
       column === undefined ? { file, line, code, expected, found } : { file, line, column, code, expected, found },
   });
-  const projectedBuffer: { fix: Fix; line: number; x: number; y: number }[] = [];
+  const projectedBuffer: { fix: Fix; line: number; x: number; y: number; sx: number; sy: number }[] = [];
   const flushProjected = function* (): Generator<ReadEvent> {
     if (projectedBuffer.length === 0) return;
-    const outcome = projectRowsToWgs84(options.inputCrs ?? '', projectedBuffer);
+    const crs = options.inputCrs ?? '';
+    const outcome = projected
+      ? projectRowsToWgs84(crs, projectedBuffer)
+      : { latDeg: new Float64Array(0), lonDeg: new Float64Array(0), method: '' };
+    const surface = surfaceProjected
+      ? projectRowsToWgs84(
+          crs,
+          projectedBuffer.map((r) => ({ x: r.sx, y: r.sy })),
+        )
+      : undefined;
     for (let k = 0; k < projectedBuffer.length; k++) {
       const row = projectedBuffer[k] as (typeof projectedBuffer)[number];
+      if (surface !== undefined) {
+        const sLat = surface.latDeg[k] ?? Number.NaN;
+        const sLon = surface.lonDeg[k] ?? Number.NaN;
+        if (Number.isFinite(sLat) && Number.isFinite(sLon) && Math.abs(sLat) <= 90 && Math.abs(sLon) <= 180) {
+          row.fix.surfaceLatDeg = sLat;
+          row.fix.surfaceLonDeg = sLon;
+        } else if (Number.isFinite(row.sx) && Number.isFinite(row.sy)) {
+          yield reject(
+            row.line,
+            'projection-failed',
+            `surface easting/northing convertible from ${crs}`,
+            `${row.sx}, ${row.sy}`,
+          );
+          continue;
+        }
+      }
+      if (!projected) {
+        yield { kind: 'fix', fix: row.fix, line: row.line };
+        continue;
+      }
       const lat = outcome.latDeg[k] ?? Number.NaN;
       const lon = outcome.lonDeg[k] ?? Number.NaN;
       if (!Number.isFinite(lat) || !Number.isFinite(lon) || Math.abs(lat) > 90 || Math.abs(lon) > 180) {
@@ -166,7 +208,7 @@ export function* readCsvEvents(
   };
   let headerSeen = !hasHeader;
   const fast =
-    projected || missingTime !== undefined || missingPosition !== undefined
+    buffered || missingTime !== undefined || missingPosition !== undefined
       ? undefined
       : FastCsvRowReader.create(map, delimiter, decimalComma, width);
   const all = (function* (): Generator<LogLineCursor> {
@@ -385,8 +427,31 @@ export function* readCsvEvents(
       depthCount++;
       if (depth < 0) negativeDepthCount++;
     }
-    if (projected) {
-      projectedBuffer.push({ fix, line, x, y });
+    if (buffered) {
+      let sx = Number.NaN;
+      let sy = Number.NaN;
+      if (surfaceProjected) {
+        const se = cols.surfaceEasting as MappedColumn;
+        const sn = cols.surfaceNorthing as MappedColumn;
+        const eCell = cells[se.index] ?? '';
+        const nCell = cells[sn.index] ?? '';
+        if (eCell.trim() !== '' || nCell.trim() !== '') {
+          sx = readNumberCell(eCell, decimalComma, se.lengthUnit);
+          sy = readNumberCell(nCell, decimalComma, sn.lengthUnit);
+          if (!Number.isFinite(sx) || !Number.isFinite(sy)) {
+            const bad = !Number.isFinite(sx) ? se : sn;
+            yield reject(
+              line,
+              'unparsable-number',
+              'a projected surface coordinate in metres',
+              quote(cells[bad.index] ?? ''),
+              bad.index + 1,
+            );
+            continue;
+          }
+        }
+      }
+      projectedBuffer.push({ fix, line, x, y, sx, sy });
       if (projectedBuffer.length >= 4096) yield* flushProjected();
       continue;
     }
