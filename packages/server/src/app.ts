@@ -78,10 +78,9 @@ function limiter(setting: RateLimitSetting, what: string, per: 'address' | 'acco
     // Per account: the e-mail address in the body, so many addresses cannot share out guesses at one account.
     ...(per === 'account'
       ? {
-          keyGenerator: (req) => {
-            const email = (req.body as { email?: unknown } | undefined)?.email;
-            return `account:${typeof email === 'string' ? email.trim().toLowerCase() : ''}`;
-          },
+          keyGenerator: (req) => `account:${accountOf(req.body)}`,
+          // Without an address there is no account to protect; the per-address limit still applies.
+          skip: (req) => accountOf(req.body) === '',
         }
       : {}),
     standardHeaders: 'draft-8',
@@ -95,6 +94,11 @@ function limiter(setting: RateLimitSetting, what: string, per: 'address' | 'acco
       );
     },
   });
+}
+
+function accountOf(body: unknown): string {
+  const email = typeof body === 'object' && body !== null ? (body as { email?: unknown }).email : undefined;
+  return typeof email === 'string' ? email.trim().toLowerCase() : '';
 }
 
 function chain(first: RequestHandler, second: RequestHandler): RequestHandler {

@@ -15,7 +15,7 @@ describe('createAuthRoutes', () => {
   let organisationId: string;
   beforeAll(async () => {
     database = await createTestDatabase();
-    testApp = await createTestApp(database, { rateLimits: { signIn: { windowMs: 60_000, limit: 5 } } });
+    testApp = await createTestApp(database, { rateLimits: { signIn: { windowMs: 60_000, limit: 30 } } });
     ({ organisationId } = await seedOrganisation(database.db, 'Hollowtide Subsea', [
       { email: 'maren@hollowtide.example', role: 'admin' },
       { email: 'ilse@hollowtide.example', role: 'viewer' },
@@ -80,6 +80,34 @@ describe('createAuthRoutes', () => {
     await agent.get('/api/v1/me').expect(200);
     await agent.delete('/api/v1/session').set('Sec-Fetch-Site', 'same-origin').expect(204);
     await agent.get('/api/v1/me').expect(401);
+  });
+
+  it('changes the password only with the current one', async () => {
+    const agent = await signedInAgent(testApp, 'ilse@hollowtide.example');
+    const wrong = await agent
+      .put('/api/v1/me/password')
+      .set('Sec-Fetch-Site', 'same-origin')
+      .send({ currentPassword: 'not it', newPassword: 'a fresh long password' })
+      .expect(401);
+    expect(wrong.body.error.message).toBe('The current password is wrong.');
+    await agent
+      .put('/api/v1/me/password')
+      .set('Sec-Fetch-Site', 'same-origin')
+      .send({ currentPassword: TEST_PASSWORD, newPassword: 'a fresh long password' })
+      .expect(204);
+    await request(testApp.app)
+      .post('/api/v1/session')
+      .send({ email: 'ilse@hollowtide.example', password: 'a fresh long password' })
+      .expect(200);
+  });
+
+  it('answers a JSON body over the limit with 413', async () => {
+    const response = await request(testApp.app)
+      .post('/api/v1/session')
+      .set('Content-Type', 'application/json')
+      .send(JSON.stringify({ email: 'a@b.example', password: 'x'.repeat(2 * 1024 * 1024) }))
+      .expect(413);
+    expect(response.body.error.code).toBe('payload-too-large');
   });
 
   it('is anonymous without a cookie', async () => {

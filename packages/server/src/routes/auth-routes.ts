@@ -2,9 +2,9 @@ import type { Request, RequestHandler } from 'express';
 import { z } from 'zod';
 import { requireUserId } from '../http/authorise.js';
 import { defineRoute, type RouteSpec } from '../http/route-table.js';
-import { getCurrentUser, signIn } from '../services/auth-service.js';
+import { changePassword, getCurrentUser, signIn } from '../services/auth-service.js';
 import type { ServiceContext } from '../services/service-context.js';
-import { CurrentUserSchema, EmailSchema } from './schemas.js';
+import { CurrentUserSchema, EmailSchema, PasswordSchema } from './schemas.js';
 
 /** Starts a fresh session for a user (a new id, so a planted session id is worthless). */
 export function startSession(req: Request, userId: string): Promise<void> {
@@ -62,6 +62,21 @@ export function createAuthRoutes(ctx: ServiceContext, limits: { signIn: RequestH
       responses: { 200: { description: 'The current user', schema: CurrentUserSchema } },
       async handler({ auth }, _req, res) {
         res.json(await getCurrentUser(ctx, requireUserId(auth)));
+      },
+    }),
+    defineRoute({
+      method: 'put',
+      path: '/me/password',
+      summary: 'Change your password (the current one is required)',
+      tag: 'Sign-in',
+      access: 'signed-in',
+      sessionOnly: true,
+      before: [limits.signIn],
+      body: z.object({ currentPassword: z.string().min(1).max(200), newPassword: PasswordSchema }),
+      responses: { 204: { description: 'Changed' } },
+      async handler({ auth, body }, _req, res) {
+        await changePassword(ctx, { userId: requireUserId(auth), ...body });
+        res.status(204).end();
       },
     }),
   ];

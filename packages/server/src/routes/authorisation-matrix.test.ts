@@ -69,6 +69,7 @@ const INTENDED_ACCESS: Record<string, string> = {
   'POST /session': 'public',
   'DELETE /session': 'signed-in+session',
   'GET /me': 'signed-in',
+  'PUT /me/password': 'signed-in+session',
   'POST /organisations': 'signed-in+session',
   'GET /organisations/:organisationId': 'viewer',
   'PATCH /organisations/:organisationId': 'admin',

@@ -41,3 +41,25 @@ export async function getCurrentUser(deps: { users: UserStore }, userId: string)
   if (user === undefined) throw new AppError('unauthenticated', 'The signed-in user no longer exists.');
   return { user, memberships: await deps.users.membershipsOf(userId) };
 }
+
+/** Changes a signed-in user's password after checking the current one; 401 when it is wrong. */
+export async function changePassword(
+  deps: { users: UserStore; activity: ActivityStore },
+  input: { userId: string; currentPassword: string; newPassword: string },
+): Promise<void> {
+  const current = await deps.users.findUserById(input.userId);
+  const found = current === undefined ? undefined : await deps.users.findUserByEmail(current.email);
+  if (
+    found === undefined ||
+    found.passwordHash === null ||
+    !(await verifyPassword(found.passwordHash, input.currentPassword))
+  )
+    throw new AppError('unauthenticated', 'The current password is wrong.');
+  await deps.users.setPasswordHash(found.id, await hashPassword(input.newPassword));
+  await deps.activity.append({
+    actorUserId: found.id,
+    action: 'password-changed',
+    subjectType: 'user',
+    subjectId: found.id,
+  });
+}

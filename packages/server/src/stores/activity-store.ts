@@ -6,6 +6,7 @@ export type ActivityAction =
   | 'sign-in-failed'
   | 'sign-out'
   | 'password-reset'
+  | 'password-changed'
   | 'invitation-sent'
   | 'invitation-accepted'
   | 'role-changed'
