@@ -1,3 +1,4 @@
+import { UnreadableInputError } from '../errors.js';
 import type { Rejection } from '../model/rejection.js';
 
 /** The text of a log, or the one rejection that says why it has none. */
@@ -105,4 +106,43 @@ function emptyFile(file: string, size: number): Rejection {
 
 function binaryContent(file: string, found: string): Rejection {
   return { file, line: 1, code: 'binary-content', expected: 'a text log (UTF-8 or UTF-16)', found };
+}
+
+/**
+ * Decodes a log given as byte chunks (a file read piece by piece) into text chunks in bounded
+ * memory, for the streaming readers (`readCsvEvents`, `readNmeaEvents`, `readGpxEvents`). Strips a
+ * UTF-8 BOM and decodes UTF-16 with a BOM; characters split across chunks are kept whole. Throws
+ * `UnreadableInputError` when the first chunk is binary (the streaming readers cannot reject it as a row).
+ */
+export function* decodeLogChunks(fileName: string, chunks: Iterable<Uint8Array>): Generator<string> {
+  let decoder: InstanceType<typeof TextDecoder> | undefined;
+  for (const chunk of chunks) {
+    if (decoder === undefined) {
+      if (chunk.length === 0) continue;
+      let start = 0;
+      let encoding: 'utf-8' | 'utf-16le' | 'utf-16be' = 'utf-8';
+      if (chunk[0] === 0xef && chunk[1] === 0xbb && chunk[2] === 0xbf) start = 3;
+      else if (chunk[0] === 0xff && chunk[1] === 0xfe) [encoding, start] = ['utf-16le', 2];
+      else if (chunk[0] === 0xfe && chunk[1] === 0xff) [encoding, start] = ['utf-16be', 2];
+      else encoding = sniffUtf16WithoutBom(chunk) ?? 'utf-8';
+      if (encoding === 'utf-8') {
+        const probe = decodeLogText(fileName, chunk.subarray(start, Math.min(chunk.length, start + SNIFF_BYTES)));
+        if (!probe.ok && probe.rejection.code === 'binary-content') {
+          throw new UnreadableInputError(
+            `${fileName}: ${probe.rejection.expected} expected, found ${probe.rejection.found}`,
+          );
+        }
+      }
+      decoder = new TextDecoder(encoding, { fatal: false });
+      const text = decoder.decode(chunk.subarray(start), { stream: true });
+      if (text.length > 0) yield text;
+      continue;
+    }
+    const text = decoder.decode(chunk, { stream: true });
+    if (text.length > 0) yield text;
+  }
+  if (decoder !== undefined) {
+    const rest = decoder.decode();
+    if (rest.length > 0) yield rest;
+  }
 }
