@@ -8,6 +8,7 @@ export interface ResolveReport {
   setup: ResolveSetup;
   applied: {
     bearingReference: AppliedSetup['bearingReference'];
+    bearingReferenceFrom: AppliedSetup['bearingReferenceFrom'];
     declinationDeg: number;
     declinationModel: AppliedSetup['declinationModel'] | null;
     waterSoundSpeedMinMps: number | null;
@@ -50,6 +51,7 @@ export function formatResolveResult(result: ResolveResult, options: { fixes?: bo
     setup: result.setup,
     applied: {
       bearingReference: applied.bearingReference,
+      bearingReferenceFrom: applied.bearingReferenceFrom,
       declinationDeg: round(applied.declinationDeg, 6) ?? 0,
       declinationModel:
         applied.declinationModel === undefined

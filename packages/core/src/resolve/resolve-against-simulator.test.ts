@@ -232,7 +232,9 @@ describe('resolveTrack against the simulator', () => {
       const track = read.tracks.find((t) => t.role === 'vehicle');
       if (track === undefined) throw new Error(`no vehicle track read from ${file.name}`);
       expect(track.length).toBe(dive.vehicleLog.length);
-      const result = resolveTrack(track, trueSetupOf(dive));
+      // The bearing reference is left to the log: the column is named bearing_rel_deg.
+      const result = resolveTrack(track, { ...trueSetupOf(dive), bearingReference: { value: 'from-log' } });
+      expect(result.applied.bearingReference).toBe('relative');
       expect(result.rejections).toEqual([]);
       // Rounding in the written file (7 decimals of a degree ≈ 1 cm, ranges to the millimetre)
       // is all that separates the result from the truth.

@@ -8,7 +8,7 @@ import { TrackBuilder } from '../model/track-builder.js';
 import { type AcousticSetup, observeVehicle, solveTopsideFix } from '../simulate/acoustic-geometry.js';
 import { magneticDeclination } from './magnetic-declination.js';
 import type { ResolveSetupInput } from './resolve-setup.js';
-import { resolveTrack } from './resolve-track.js';
+import { bearingReferenceFromHeader, resolveTrack } from './resolve-track.js';
 import { harmonicMeanSoundSpeed, soundSpeedMackenzie1981 } from './sound-speed.js';
 
 // The forward model is the simulator's (packages/core/src/simulate/acoustic-geometry.ts), written
@@ -398,6 +398,13 @@ describe('resolveTrack', () => {
       /leverArm\.starboardM/,
     );
     const unknown = { ...dive.track, provenance: { ...dive.track.provenance, bearingReference: 'unknown' as const } };
+    // With no statement in the log, the bearing column's name can still say it.
+    const named = {
+      ...dive.track,
+      provenance: { ...unknown.provenance, columnMapping: { bearingDeg: 'Bearing rel (deg)' } },
+    };
+    const fromName = resolveTrack(named, { soundSpeed: { loggedMps: 1500 } });
+    expect(fromName.applied).toMatchObject({ bearingReference: 'relative', bearingReferenceFrom: 'column-name' });
     expect(() => resolveTrack(unknown, { soundSpeed: { loggedMps: 1500 } })).toThrow(InvalidArgumentError);
     expect(() => resolveTrack({ ...dive.track, role: 'surface' }, TRUE_RESOLVE_SETUP)).toThrow(/vehicle track/);
   });
@@ -443,3 +450,18 @@ function makeStillDive(): Dive {
   });
   return { track, ...dive };
 }
+
+describe('bearingReferenceFromHeader', () => {
+  it('reads the reference from common header words', () => {
+    expect(bearingReferenceFromHeader('bearing_rel_deg')).toBe('relative');
+    expect(bearingReferenceFromHeader('Relative bearing')).toBe('relative');
+    expect(bearingReferenceFromHeader('Brg (T)')).toBe('true');
+    expect(bearingReferenceFromHeader('bearing_true_deg')).toBe('true');
+    expect(bearingReferenceFromHeader('Bearing magnetic')).toBe('magnetic');
+  });
+
+  it('says nothing when the header says nothing or contradicts itself', () => {
+    expect(bearingReferenceFromHeader('bearing_deg')).toBeUndefined();
+    expect(bearingReferenceFromHeader('Brg rel T')).toBeUndefined();
+  });
+});

@@ -32,6 +32,8 @@ export type ResolvedProvenance = Provenance & { resolveSetup: ResolveSetup; reso
 export interface AppliedSetup {
   /** The bearing reference used after `from-log` was looked up. */
   bearingReference: Exclude<BearingReference, 'unknown'>;
+  /** Where it came from: the setup, the log's own statement, or the bearing column's name. */
+  bearingReferenceFrom: 'setup' | 'log' | 'column-name';
   /** Declination added to logged headings, degrees east. */
   declinationDeg: number;
   /** When the declination came from the World Magnetic Model: where and when it was evaluated. */
@@ -114,7 +116,7 @@ export function resolveTrack(track: Track, setupInput: unknown, options: Resolve
   const n = track.length;
   const cols = track.columns;
 
-  const bearingReference = pickBearingReference(setup, track);
+  const { reference: bearingReference, from: bearingReferenceFrom } = pickBearingReference(setup, track);
   const travelTimes = options.oneWayTravelTimeS;
   if (setup.rangeObservation.kind === 'one-way-travel-time' && (travelTimes === undefined || travelTimes.length !== n))
     throw new InvalidArgumentError(
@@ -228,6 +230,7 @@ export function resolveTrack(track: Track, setupInput: unknown, options: Resolve
   const resolved = { ...built, provenance };
   const applied: AppliedSetup = {
     bearingReference,
+    bearingReferenceFrom,
     declinationDeg: declination.declinationDeg,
     ...(declination.model === undefined ? {} : { declinationModel: declination.model }),
     waterSoundSpeedMinMps: sourceIndex.length === 0 ? Number.NaN : minMps,
@@ -265,15 +268,39 @@ function briefAudit(result: ReturnType<typeof auditTrack>): AuditOutcome {
   return { verdict: result.verdict, findingCount: result.findings.length, flaggedCount: result.flaggedCount };
 }
 
-function pickBearingReference(setup: ResolveSetup, track: Track): Exclude<BearingReference, 'unknown'> {
+function pickBearingReference(
+  setup: ResolveSetup,
+  track: Track,
+): { reference: Exclude<BearingReference, 'unknown'>; from: AppliedSetup['bearingReferenceFrom'] } {
   const stated = setup.bearingReference.value;
-  if (stated !== 'from-log') return stated;
+  if (stated !== 'from-log') return { reference: stated, from: 'setup' };
   const fromLog = track.provenance.bearingReference;
-  if (fromLog === undefined || fromLog === 'unknown')
-    throw new InvalidArgumentError(
-      `${track.provenance.sourceFile}: the log does not say what its bearings are measured from; set bearingReference.value in the setup to relative, true or magnetic`,
-    );
-  return fromLog;
+  if (fromLog !== undefined && fromLog !== 'unknown') return { reference: fromLog, from: 'log' };
+  const header = track.provenance.columnMapping?.bearingDeg;
+  const fromHeader = header === undefined ? undefined : bearingReferenceFromHeader(header);
+  if (fromHeader !== undefined) return { reference: fromHeader, from: 'column-name' };
+  throw new InvalidArgumentError(
+    `${track.provenance.sourceFile}: the log does not say what its bearings are measured from; set bearingReference.value in the setup to relative, true or magnetic`,
+  );
+}
+
+/**
+ * What a bearing column's header says its bearings are measured from, e.g. `bearing_rel_deg` →
+ * `relative`, `Brg (T)` → `true`, `bearing magnetic` → `magnetic`; `undefined` when it says
+ * nothing or contradicts itself.
+ */
+export function bearingReferenceFromHeader(header: string): Exclude<BearingReference, 'unknown'> | undefined {
+  const words = header
+    .toLowerCase()
+    .split(/[^a-z]+/)
+    .filter((w) => w !== '');
+  const found = new Set<Exclude<BearingReference, 'unknown'>>();
+  for (const w of words) {
+    if (w === 'rel' || w === 'relative' || w === 'bow') found.add('relative');
+    else if (w === 't' || w === 'true' || w === 'tru' || w === 'north') found.add('true');
+    else if (w === 'mag' || w === 'magnetic') found.add('magnetic');
+  }
+  return found.size === 1 ? [...found][0] : undefined;
 }
 
 interface SurfaceColumns {
