@@ -13,10 +13,13 @@ import { mountRoutes } from './http/mount-routes.js';
 import { buildOpenApiDocument } from './http/openapi.js';
 import { createLogger, createRequestLogger } from './http/request-logger.js';
 import { defineRoute, type RouteSpec } from './http/route-table.js';
+import type { ProcessingQueue } from './jobs/processing-queue.js';
 import type { FakeSmtpServer } from './mail/fake-smtp-server.js';
 import type { Mailer } from './mail/mailer.js';
 import { createApiTokenRoutes } from './routes/api-token-routes.js';
 import { createAuthRoutes } from './routes/auth-routes.js';
+import { createConvertRoutes } from './routes/convert-routes.js';
+import { createDiveRoutes } from './routes/dive-routes.js';
 import { createHealthRoutes } from './routes/health-routes.js';
 import { createInvitationRoutes } from './routes/invitation-routes.js';
 import { createMailboxRoutes } from './routes/mailbox-routes.js';
@@ -24,12 +27,15 @@ import { createMemberRoutes } from './routes/member-routes.js';
 import { createOrganisationRoutes } from './routes/organisation-routes.js';
 import { createProjectRoutes } from './routes/project-routes.js';
 import { authenticateApiToken } from './services/api-token-service.js';
+import { type DiveDeps, queueLogProcessing } from './services/dive-service.js';
 import type { ServiceContext } from './services/service-context.js';
 import { createKnexActivityStore } from './stores/activity-store.js';
 import { createKnexApiTokenStore } from './stores/api-token-store.js';
+import { createKnexDiveStore } from './stores/dive-store.js';
 import { createKnexEmailLinkStore } from './stores/email-link-store.js';
 import { createKnexHealthStore, type HealthStore } from './stores/health-store.js';
 import { createKnexLogStore } from './stores/log-store.js';
+import { createKnexProcessingRunStore } from './stores/processing-run-store.js';
 import { createKnexProjectStore } from './stores/project-store.js';
 import { createKnexUserStore } from './stores/user-store.js';
 
@@ -63,6 +69,8 @@ export interface AppDependencies {
   healthStore?: HealthStore;
   /** Folder of the built web site; when set, it is served with a fallback to `index.html`. */
   webDist?: string | undefined;
+  /** Where processing runs are sent (pg-boss); without it runs wait as `queued` for a worker. */
+  processingQueue?: ProcessingQueue | undefined;
 }
 
 /** The app and the route table it serves (the authorisation matrix test walks the table). */
@@ -133,6 +141,15 @@ export function buildApp(deps: AppDependencies): BuiltApp {
     resetRequest: chain(resetByAddress, resetByAccount),
   };
 
+  const archive: DiveDeps = {
+    projects: createKnexProjectStore(deps.db),
+    logs: createKnexLogStore(deps.db),
+    runs: createKnexProcessingRunStore(deps.db),
+    dives: createKnexDiveStore(deps.db),
+    activity: ctx.activity,
+    queue: deps.processingQueue,
+    now: ctx.now,
+  };
   const routes: RouteSpec[] = [
     ...createHealthRoutes({ healthStore: ctx.health }),
     ...createAuthRoutes(ctx, limits),
@@ -140,7 +157,13 @@ export function buildApp(deps: AppDependencies): BuiltApp {
     ...createMemberRoutes(ctx),
     ...createInvitationRoutes(ctx, limits),
     ...createApiTokenRoutes(ctx),
-    ...createProjectRoutes(ctx, { projects: createKnexProjectStore(deps.db), logs: createKnexLogStore(deps.db) }),
+    ...createProjectRoutes(ctx, {
+      projects: archive.projects,
+      logs: archive.logs,
+      onLogCreated: (log, input) => queueLogProcessing(archive, { ...input, projectId: log.projectId, logId: log.id }),
+    }),
+    ...createDiveRoutes(archive),
+    ...createConvertRoutes(ctx.now),
     ...(deps.fakeMailbox === undefined ? [] : createMailboxRoutes(deps.fakeMailbox)),
   ];
   let openApi: unknown;

@@ -5,6 +5,7 @@ import { ConfigError, parseConfig } from './config.js';
 import { createDatabase } from './db.js';
 import { createLogger } from './http/request-logger.js';
 import { createPgSessionStore } from './http/session-store.js';
+import { startProcessing } from './jobs/start-processing.js';
 import { type FakeSmtpServer, startFakeSmtpServer } from './mail/fake-smtp-server.js';
 import { createSmtpMailer } from './mail/mailer.js';
 
@@ -39,7 +40,17 @@ if (smtpUrl === undefined) {
 }
 const mailer = createSmtpMailer(smtpUrl, config.mailFrom);
 
+// Processing jobs (pg-boss in the same database) with a worker inside the server; WORKER=off leaves
+// the work to standalone workers (`npm run worker`).
+const processing = await startProcessing({
+  databaseUrl: config.databaseUrl,
+  db,
+  logger,
+  worker: process.env.WORKER !== 'off',
+});
+
 const app = createApp({
+  processingQueue: processing.queue,
   db,
   sessionStore: sessions.store,
   sessionSecret: config.sessionSecret,
@@ -72,7 +83,11 @@ function stop(): void {
   stopping = true;
   server.close(() => {
     mailer.close();
-    void Promise.allSettled([sessions.close(), fakeMailbox?.close(), db.destroy()]).finally(() => process.exit(0));
+    void processing
+      .stop()
+      .catch(() => undefined)
+      .then(() => Promise.allSettled([sessions.close(), fakeMailbox?.close(), db.destroy()]))
+      .finally(() => process.exit(0));
   });
   server.closeAllConnections();
   setTimeout(() => process.exit(0), 5000).unref();

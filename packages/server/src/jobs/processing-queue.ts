@@ -118,7 +118,8 @@ export async function startProcessingWorker(
             log?.warn({ runId, reason: message }, 'processing run failed');
             continue;
           }
-          if (job.retryCount >= job.retryLimit) await deps.runs.fail(runId, `gave up after ${job.retryCount + 1} attempts: ${message}`);
+          if (job.retryCount >= job.retryLimit)
+            await deps.runs.fail(runId, `gave up after ${job.retryCount + 1} attempts: ${message}`);
           else await deps.runs.requeue(runId, `attempt ${job.retryCount + 1} failed, will retry: ${message}`);
           log?.error({ runId, err: error }, 'processing attempt failed');
           throw error;

@@ -98,6 +98,15 @@ const INTENDED_ACCESS: Record<string, string> = {
   'GET /organisations/:organisationId/projects/:projectId/logs': 'viewer',
   'GET /organisations/:organisationId/projects/:projectId/logs/:logId/original': 'viewer',
   'DELETE /organisations/:organisationId/projects/:projectId/logs/:logId': 'admin',
+  'GET /organisations/:organisationId/projects/:projectId/dives': 'viewer',
+  'GET /organisations/:organisationId/projects/:projectId/dives/:diveId': 'viewer',
+  'GET /organisations/:organisationId/projects/:projectId/dives/:diveId/track': 'viewer',
+  'GET /organisations/:organisationId/projects/:projectId/dives/:diveId/report': 'viewer',
+  'POST /organisations/:organisationId/projects/:projectId/dives/:diveId/reprocess': 'editor',
+  'GET /organisations/:organisationId/projects/:projectId/logs/:logId/runs': 'viewer',
+  'POST /organisations/:organisationId/projects/:projectId/logs/:logId/reprocess': 'editor',
+  'GET /organisations/:organisationId/projects/:projectId/dive-archive': 'viewer',
+  'POST /convert': 'signed-in',
 };
 
 const RANK: Record<Role, number> = { viewer: 0, editor: 1, admin: 2 };

@@ -15,7 +15,7 @@ import {
   uploadLogs,
 } from '../services/project-service.js';
 import type { ServiceContext } from '../services/service-context.js';
-import type { LogStore } from '../stores/log-store.js';
+import type { LogRecord, LogStore } from '../stores/log-store.js';
 import type { ProjectStore } from '../stores/project-store.js';
 import { OrganisationParams, TimestampSchema, UuidSchema } from './schemas.js';
 
@@ -73,6 +73,8 @@ const UploadResultSchema = z.object({
 export interface ProjectRouteStores {
   projects: ProjectStore;
   logs: LogStore;
+  /** Called once for each newly archived log (queues its processing). */
+  onLogCreated?: (log: LogRecord, input: { organisationId: string; actorUserId: string }) => Promise<unknown>;
 }
 
 function contentDisposition(fileName: string): string {

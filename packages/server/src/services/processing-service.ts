@@ -17,8 +17,7 @@ import {
 } from '@leadline/core';
 import type { DiveStore, NewDive, NewDiveResult } from '../stores/dive-store.js';
 import type { LogStore } from '../stores/log-store.js';
-import type { RunRecord } from '../stores/processing-run-store.js';
-import type { ProcessingRunStore } from '../stores/processing-run-store.js';
+import type { ProcessingRunStore, RunRecord } from '../stores/processing-run-store.js';
 import type { ProjectStore } from '../stores/project-store.js';
 
 /** What processing reaches: the archive and the stores of runs and dives. */
@@ -92,7 +91,9 @@ export function computeDiveResult(input: {
       movedM: resolved.comparison.summary,
       audit: resolved.comparison.audit,
       applied: resolved.applied,
-      rejections: resolved.rejections.slice(0, 100).map((r) => ({ line: r.line, reason: r.reason, message: r.message })),
+      rejections: resolved.rejections
+        .slice(0, 100)
+        .map((r) => ({ line: r.line, reason: r.reason, message: r.message })),
     };
   }
   const audit = auditTrack(audited, { profile: input.profile, setup: input.auditSetup });

@@ -17,6 +17,10 @@ interface Deps {
   projects: ProjectStore;
   logs: LogStore;
   activity: ActivityStore;
+  /** Called once for each newly archived log (queues its processing). */
+  onLogCreated?:
+    | ((log: LogRecord, input: { organisationId: string; actorUserId: string }) => Promise<unknown>)
+    | undefined;
 }
 
 /** Normalises and checks a project's time zone (IANA) and CRS (an EPSG code core can resolve); 422 otherwise. */
@@ -191,6 +195,7 @@ export async function uploadLogs(
         subjectId: log.id,
         details: { projectId: input.projectId, fileName: file.fileName, sha256, sizeBytes: log.sizeBytes },
       });
+    if (created) await deps.onLogCreated?.(log, input);
     results.push({ fileName: file.fileName, status: created ? 'created' : 'existing', log });
   }
   return results;

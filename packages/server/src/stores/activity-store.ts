@@ -17,7 +17,8 @@ export type ActivityAction =
   | 'project-updated'
   | 'project-deleted'
   | 'log-uploaded'
-  | 'log-deleted';
+  | 'log-deleted'
+  | 'reprocess-requested';
 
 /** One entry of the activity trail: who did what to which subject, when. */
 export interface ActivityRecord {

@@ -435,7 +435,10 @@ export function createKnexDiveStore(db: Knex): DiveStore {
       return row === undefined ? undefined : toDive(row);
     },
     async diveIdsOfLog(logId) {
-      const rows: Array<{ id: string }> = await db('dives').where({ log_id: logId }).orderBy('dive_number').select('id');
+      const rows: Array<{ id: string }> = await db('dives')
+        .where({ log_id: logId })
+        .orderBy('dive_number')
+        .select('id');
       return rows.map((r) => r.id);
     },
     async tracks(diveId) {

@@ -104,7 +104,8 @@ export function createKnexProcessingRunStore(db: Knex): ProcessingRunStore {
           dive_id: run.diveId ?? null,
           kind: run.kind,
           audit_profile: run.auditProfile,
-          resolve_setup: run.resolveSetup === null || run.resolveSetup === undefined ? null : JSON.stringify(run.resolveSetup),
+          resolve_setup:
+            run.resolveSetup === null || run.resolveSetup === undefined ? null : JSON.stringify(run.resolveSetup),
           audit_setup: JSON.stringify(run.auditSetup),
           requested_by: run.requestedBy,
         })
@@ -137,7 +138,10 @@ export function createKnexProcessingRunStore(db: Knex): ProcessingRunStore {
       return row === undefined ? undefined : toRunRecord(row);
     },
     async requeue(runId, reason) {
-      await db('processing_runs').where({ id: runId }).whereNot({ status: 'done' }).update({ status: 'queued', reason });
+      await db('processing_runs')
+        .where({ id: runId })
+        .whereNot({ status: 'done' })
+        .update({ status: 'queued', reason });
     },
     async fail(runId, reason) {
       await db('processing_runs')

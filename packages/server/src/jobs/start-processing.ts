@@ -1,0 +1,70 @@
+import type { Knex } from 'knex';
+import type { Logger } from 'pino';
+import type { ProcessingHooks } from '../services/processing-service.js';
+import { createKnexDiveStore } from '../stores/dive-store.js';
+import { createKnexLogStore } from '../stores/log-store.js';
+import { createKnexProcessingRunStore } from '../stores/processing-run-store.js';
+import { createKnexProjectStore } from '../stores/project-store.js';
+import {
+  createProcessingQueue,
+  type ProcessingJobSettings,
+  type ProcessingQueue,
+  type ProcessingWorker,
+  startJobBoss,
+  startProcessingWorker,
+} from './processing-queue.js';
+
+/** The job queue of a process, with its worker when it runs one. */
+export interface Processing {
+  queue: ProcessingQueue;
+  worker: ProcessingWorker | undefined;
+  stop(): Promise<void>;
+}
+
+/**
+ * Starts pg-boss on the application's database, and a processing worker unless `worker` is false
+ * (the server runs one by default; `npm run worker` runs one alone).
+ */
+export async function startProcessing(options: {
+  databaseUrl: string;
+  db: Knex;
+  logger?: Logger;
+  worker?: boolean;
+  hooks?: ProcessingHooks;
+  settings?: Partial<ProcessingJobSettings>;
+  pollingIntervalS?: number;
+  maintenanceIntervalS?: number;
+}): Promise<Processing> {
+  const boss = await startJobBoss(options.databaseUrl, {
+    ...(options.logger === undefined ? {} : { logger: options.logger }),
+    ...(options.maintenanceIntervalS === undefined ? {} : { maintenanceIntervalS: options.maintenanceIntervalS }),
+  });
+  const runs = createKnexProcessingRunStore(options.db);
+  const worker =
+    options.worker === false
+      ? undefined
+      : await startProcessingWorker(
+          boss,
+          {
+            projects: createKnexProjectStore(options.db),
+            logs: createKnexLogStore(options.db),
+            runs,
+            dives: createKnexDiveStore(options.db),
+          },
+          {
+            ...(options.logger === undefined ? {} : { logger: options.logger }),
+            ...(options.hooks === undefined ? {} : { hooks: options.hooks }),
+            ...(options.settings === undefined ? {} : { settings: options.settings }),
+            ...(options.pollingIntervalS === undefined ? {} : { pollingIntervalS: options.pollingIntervalS }),
+          },
+        );
+  const queue = createProcessingQueue(boss, runs, options.settings, worker?.wake);
+  return {
+    queue,
+    worker,
+    stop: async () => {
+      await worker?.stop();
+      await boss.stop({ graceful: true, wait: true, timeout: 5000 });
+    },
+  };
+}

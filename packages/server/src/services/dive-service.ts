@@ -1,0 +1,311 @@
+import {
+  auditTrack,
+  buildReportPlot,
+  formatDiveReportHtml,
+  formatDiveReportMarkdown,
+  formatReportJson,
+  LeadlineError,
+  parseAuditSetup,
+  parseResolveSetup,
+  resolveAuditProfile,
+  resolveTrack,
+  smoothTrack,
+  type Track,
+} from '@leadline/core';
+import { AppError } from '../http/errors.js';
+import type { ProcessingQueue } from '../jobs/processing-queue.js';
+import type { ActivityStore } from '../stores/activity-store.js';
+import type { DiveQuery, DiveRecord, DiveResultRecord, DiveStore } from '../stores/dive-store.js';
+import type { LogRecord, LogStore } from '../stores/log-store.js';
+import type { ProcessingRunStore, RunRecord } from '../stores/processing-run-store.js';
+import type { ProjectRecord, ProjectStore } from '../stores/project-store.js';
+import { auditSetupFromResolveSetup } from './processing-service.js';
+import { baseName, renderTracks, type TrackFormat } from './track-output.js';
+
+/** What the dive services reach. */
+export interface DiveDeps {
+  projects: ProjectStore;
+  logs: LogStore;
+  runs: ProcessingRunStore;
+  dives: DiveStore;
+  activity: ActivityStore;
+  /** Absent when the app runs without a job queue: runs then wait as `queued` for a worker. */
+  queue?: ProcessingQueue | undefined;
+  now: () => Date;
+}
+
+/** Which positions a download holds: as logged, smoothed, or re-solved. */
+export type TrackVariant = 'raw' | 'cleaned' | 'resolved';
+
+/** Report formats. */
+export type ReportFormat = 'json' | 'md' | 'html';
+
+async function projectOf(deps: DiveDeps, organisationId: string, projectId: string): Promise<ProjectRecord> {
+  const project = await deps.projects.find(organisationId, projectId);
+  if (project === undefined) throw new AppError('not-found', `No project ${projectId} in this organisation.`);
+  return project;
+}
+
+async function logOf(deps: DiveDeps, projectId: string, logId: string): Promise<LogRecord> {
+  const log = await deps.logs.find(projectId, logId);
+  if (log === undefined) throw new AppError('not-found', `No log ${logId} in this project.`);
+  return log;
+}
+
+async function diveOf(deps: DiveDeps, organisationId: string, projectId: string, diveId: string) {
+  const project = await projectOf(deps, organisationId, projectId);
+  const dive = await deps.dives.find(projectId, diveId);
+  if (dive === undefined) throw new AppError('not-found', `No dive ${diveId} in this project.`);
+  return { project, dive };
+}
+
+async function resultOf(deps: DiveDeps, dive: DiveRecord, resultId?: string): Promise<DiveResultRecord> {
+  const id = resultId ?? dive.latestResultId;
+  const result = id === null ? undefined : await deps.dives.result(dive.id, id);
+  if (result === undefined) throw new AppError('not-found', `No result ${id ?? ''} of dive ${dive.id}.`);
+  return result;
+}
+
+function unprocessable<T>(field: string, work: () => T): T {
+  try {
+    return work();
+  } catch (error) {
+    if (error instanceof LeadlineError) throw new AppError('unprocessable', error.message, { field });
+    throw error;
+  }
+}
+
+/**
+ * Queues the first processing of a newly archived log with the project's audit profile and the
+ * audit setup its default re-solve setup implies (the logged positions are audited as logged).
+ */
+export async function queueLogProcessing(
+  deps: Pick<DiveDeps, 'projects' | 'runs' | 'queue'>,
+  input: { organisationId: string; projectId: string; logId: string; actorUserId: string | null },
+): Promise<RunRecord> {
+  const project = await deps.projects.find(input.organisationId, input.projectId);
+  if (project === undefined) throw new AppError('not-found', `No project ${input.projectId} in this organisation.`);
+  const run = await deps.runs.create({
+    projectId: input.projectId,
+    logId: input.logId,
+    kind: 'process',
+    auditProfile: project.auditProfile,
+    resolveSetup: null,
+    auditSetup: auditSetupFromResolveSetup(project.defaultSetup),
+    requestedBy: input.actorUserId,
+  });
+  try {
+    await deps.queue?.enqueue(run, input.organisationId);
+  } catch {
+    // The log and its queued run are stored; a worker sends runs left without a job when it starts.
+  }
+  return run;
+}
+
+/** A project's dives, filtered, sorted and paged, with the total before paging. */
+export async function listDives(
+  deps: DiveDeps,
+  organisationId: string,
+  query: DiveQuery,
+): Promise<{ dives: DiveRecord[]; total: number }> {
+  await projectOf(deps, organisationId, query.projectId);
+  return deps.dives.list(query);
+}
+
+/** One dive with its latest result and how many runs it has had. */
+export async function getDive(
+  deps: DiveDeps,
+  input: { organisationId: string; projectId: string; diveId: string },
+): Promise<{ dive: DiveRecord; results: DiveResultRecord[] }> {
+  const { dive } = await diveOf(deps, input.organisationId, input.projectId, input.diveId);
+  return { dive, results: await deps.dives.results(dive.id) };
+}
+
+/** A log's processing runs, newest first (the first is its status). */
+export async function listRuns(
+  deps: DiveDeps,
+  input: { organisationId: string; projectId: string; logId: string },
+): Promise<RunRecord[]> {
+  await projectOf(deps, input.organisationId, input.projectId);
+  await logOf(deps, input.projectId, input.logId);
+  return deps.runs.listForLog(input.logId);
+}
+
+/** The track of a variant: as stored, smoothed after the result's audit, or re-solved with the result's (or the project's) setup. */
+async function variantTrack(
+  deps: DiveDeps,
+  project: ProjectRecord,
+  dive: DiveRecord,
+  variant: TrackVariant,
+): Promise<{ vehicle: Track; surface: Track | undefined }> {
+  const tracks = await deps.dives.tracks(dive.id);
+  if (tracks === undefined) throw new AppError('not-found', `Dive ${dive.id} has no stored fixes.`);
+  if (variant === 'raw') return tracks;
+  const result = await resultOf(deps, dive);
+  const profile = unprocessable('auditProfile', () => resolveAuditProfile(result.auditProfile));
+  const auditSetup = unprocessable('auditSetup', () => parseAuditSetup(result.auditSetup));
+  if (variant === 'cleaned') {
+    const audit = auditTrack(tracks.vehicle, { profile, setup: auditSetup });
+    const smoothed = smoothTrack(tracks.vehicle, {
+      accelerationSigmaMps2: profile.smoothingAccelerationMps2,
+      horizontal95M: audit.uncertainty.horizontal95M,
+      flags: audit.flags,
+    });
+    return { vehicle: { ...smoothed.track, id: `${tracks.vehicle.id}-cleaned` }, surface: tracks.surface };
+  }
+  const setup = result.resolveSetup ?? project.defaultSetup;
+  if (setup === null || setup === undefined)
+    throw new AppError(
+      'unprocessable',
+      'No re-solve setup: give the project a default setup or reprocess the dive with one.',
+      { field: 'variant' },
+    );
+  const resolved = unprocessable('setup', () =>
+    resolveTrack(tracks.vehicle, setup, {
+      ...(tracks.surface === undefined ? {} : { surfaceTrack: tracks.surface }),
+      auditProfile: profile,
+      auditSetup,
+    }),
+  );
+  return { vehicle: resolved.track, surface: tracks.surface };
+}
+
+/** A dive's track as a file: GPX, GeoJSON, CSV (optionally with a CRS) or KML; raw, cleaned or re-solved. */
+export async function downloadDiveTrack(
+  deps: DiveDeps,
+  input: {
+    organisationId: string;
+    projectId: string;
+    diveId: string;
+    format: TrackFormat;
+    variant: TrackVariant;
+    crs?: string | undefined;
+  },
+): Promise<{ fileName: string; contentType: string; text: string; crsNote: string | undefined }> {
+  const { project, dive } = await diveOf(deps, input.organisationId, input.projectId, input.diveId);
+  const { vehicle, surface } = await variantTrack(deps, project, dive, input.variant);
+  const name = diveFileName(dive, input.variant);
+  const rendered = renderTracks(
+    { tracks: surface === undefined ? [vehicle] : [vehicle, surface], waypoints: [] },
+    { format: input.format, crs: input.crs, name, nowMs: deps.now().getTime() },
+  );
+  return {
+    fileName: `${name}.${rendered.extension}`,
+    contentType: rendered.contentType,
+    text: rendered.text,
+    crsNote: rendered.crsNote,
+  };
+}
+
+/** `<log name>-dive-<nn>[-cleaned|-resolved]`. */
+export function diveFileName(dive: DiveRecord, variant: TrackVariant): string {
+  const suffix = variant === 'raw' ? '' : `-${variant}`;
+  return `${baseName(dive.logFileName)}-dive-${String(dive.diveNumber).padStart(2, '0')}${suffix}`;
+}
+
+/** A dive's audit report (latest result unless one is named) as JSON, Markdown or HTML. */
+export async function downloadDiveReport(
+  deps: DiveDeps,
+  input: { organisationId: string; projectId: string; diveId: string; format: ReportFormat; resultId?: string },
+): Promise<{ fileName: string; contentType: string; text: string }> {
+  const { dive } = await diveOf(deps, input.organisationId, input.projectId, input.diveId);
+  const result = await resultOf(deps, dive, input.resultId);
+  const name = `${diveFileName(dive, 'raw')}.audit`;
+  if (input.format === 'json')
+    return { fileName: `${name}.json`, contentType: 'application/json', text: formatReportJson(result.report) };
+  if (input.format === 'md')
+    return {
+      fileName: `${name}.md`,
+      contentType: 'text/markdown; charset=utf-8',
+      text: formatDiveReportMarkdown(result.report),
+    };
+  const tracks = await deps.dives.tracks(dive.id);
+  const flags = await deps.dives.flags(result.id);
+  if (tracks === undefined || flags === undefined)
+    throw new AppError('not-found', `Dive ${dive.id} has no stored fixes.`);
+  let audited = tracks.vehicle;
+  if (result.resolveSetup !== null && result.resolveSetup !== undefined)
+    audited = unprocessable('setup', () =>
+      resolveTrack(
+        tracks.vehicle,
+        result.resolveSetup,
+        tracks.surface === undefined ? {} : { surfaceTrack: tracks.surface },
+      ),
+    ).track;
+  const plot = buildReportPlot(audited, flags.length === audited.length ? flags : new Uint16Array(audited.length));
+  return {
+    fileName: `${name}.html`,
+    contentType: 'text/html; charset=utf-8',
+    text: formatDiveReportHtml(result.report, plot),
+  };
+}
+
+/** What a reprocess asks for; omitted fields take the project's settings (no setup: no re-solve). */
+export interface ReprocessRequest {
+  auditProfile?: string | undefined;
+  /** A re-solve setup; the dive's positions are re-solved with it before the audit. */
+  setup?: unknown;
+  auditSetup?: unknown;
+}
+
+async function queueReprocess(
+  deps: DiveDeps,
+  input: {
+    organisationId: string;
+    project: ProjectRecord;
+    logId: string;
+    diveId: string | null;
+    actorUserId: string;
+    request: ReprocessRequest;
+  },
+): Promise<RunRecord> {
+  const auditProfile = input.request.auditProfile ?? input.project.auditProfile;
+  unprocessable('auditProfile', () => resolveAuditProfile(auditProfile));
+  const setup = input.request.setup ?? null;
+  const resolveSetup = setup === null ? null : unprocessable('setup', () => parseResolveSetup(setup));
+  const auditSetup =
+    input.request.auditSetup === undefined
+      ? auditSetupFromResolveSetup(setup ?? input.project.defaultSetup)
+      : (unprocessable('auditSetup', () => parseAuditSetup(input.request.auditSetup)) as Record<string, unknown>);
+  const run = await deps.runs.create({
+    projectId: input.project.id,
+    logId: input.logId,
+    diveId: input.diveId,
+    kind: 'reprocess',
+    auditProfile,
+    resolveSetup,
+    auditSetup,
+    requestedBy: input.actorUserId,
+  });
+  await deps.activity.append({
+    organisationId: input.organisationId,
+    actorUserId: input.actorUserId,
+    action: 'reprocess-requested',
+    subjectType: input.diveId === null ? 'log' : 'dive',
+    subjectId: input.diveId ?? input.logId,
+    details: { runId: run.id, auditProfile, resolve: resolveSetup !== null },
+  });
+  await deps.queue?.enqueue(run, input.organisationId);
+  return run;
+}
+
+/** Queues a reprocess of one dive. */
+export async function reprocessDive(
+  deps: DiveDeps,
+  input: { organisationId: string; projectId: string; diveId: string; actorUserId: string; request: ReprocessRequest },
+): Promise<RunRecord> {
+  const { project, dive } = await diveOf(deps, input.organisationId, input.projectId, input.diveId);
+  return queueReprocess(deps, { ...input, project, logId: dive.logId, diveId: dive.id });
+}
+
+/** Queues a reprocess of every dive of a log; 409 while the log has not been split into dives yet. */
+export async function reprocessLog(
+  deps: DiveDeps,
+  input: { organisationId: string; projectId: string; logId: string; actorUserId: string; request: ReprocessRequest },
+): Promise<RunRecord> {
+  const project = await projectOf(deps, input.organisationId, input.projectId);
+  await logOf(deps, input.projectId, input.logId);
+  if ((await deps.dives.diveIdsOfLog(input.logId)).length === 0)
+    throw new AppError('conflict', 'The log has no dives yet: wait until its processing is done, then reprocess.');
+  return queueReprocess(deps, { ...input, project, diveId: null });
+}
