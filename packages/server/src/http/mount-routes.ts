@@ -65,8 +65,10 @@ export function mountRoutes(routes: readonly RouteSpec[], deps: MountDependencie
 
     const handle = async (req: Request, res: Response, next: NextFunction): Promise<void> => {
       const caller = await resolveCaller(req, res);
-      // Bearer tokens are not sent by browsers on their own, so only cookie-borne requests need the check.
-      if (caller.kind !== 'token' && isStateChanging(req.method)) checkSameOrigin(req);
+      // Browsers never add an Authorization header on their own (a cross-site page cannot without CORS),
+      // so only cookie-borne requests need the check.
+      const bearer = caller.kind === 'token' || caller.kind === 'bad-token';
+      if (!bearer && isStateChanging(req.method)) checkSameOrigin(req);
       const auth = await authorise(route, caller, req, deps.users);
       const params = parse(route.params, req.params, 'path');
       const query = parse(route.query, req.query, 'query');
