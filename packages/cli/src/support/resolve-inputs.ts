@@ -20,6 +20,9 @@ export interface ResolvedInputs {
 }
 
 const SKIPPED_FOLDERS = ['**/node_modules/**', '**/.git/**', '**/.*/**'];
+// Inside a folder, files Leadline itself writes beside logs are not logs: run manifests and the
+// simulator's truth files. Named explicitly, they are still read.
+const SKIPPED_IN_FOLDERS = [...SKIPPED_FOLDERS, '**/leadline-run.json', '**/*.truth.json'];
 
 /**
  * Expands files, folders (recursed, hidden folders skipped) and globs into a sorted, de-duplicated
@@ -50,7 +53,7 @@ export async function resolveInputs(args: readonly string[], cwd: string = proce
         cwd: absolute,
         absolute: true,
         onlyFiles: true,
-        ignore: SKIPPED_FOLDERS,
+        ignore: SKIPPED_IN_FOLDERS,
         dot: false,
       });
       if (found.length === 0) problems.push(`${arg}: the folder holds no files`);

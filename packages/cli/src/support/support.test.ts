@@ -17,15 +17,22 @@ beforeEach(() => {
   writeFileSync(join(dir, 'season', 'day1', 'dive1.csv'), 'a\n');
   writeFileSync(join(dir, 'season', 'day1', 'dive2.gpx'), '<gpx/>\n');
   writeFileSync(join(dir, 'season', '.hidden', 'skip.csv'), 'x\n');
+  writeFileSync(join(dir, 'season', 'leadline-run.json'), '{}\n');
+  writeFileSync(join(dir, 'season', 'day1', 'dive1.truth.json'), '{}\n');
 });
 afterEach(() => rmSync(dir, { recursive: true, force: true }));
 
 describe('resolveInputs', () => {
-  it('recurses folders, skips hidden ones and keeps paths relative to the folder given', async () => {
+  it('recurses folders, skips hidden ones, run manifests and truth files, and keeps paths relative to the folder given', async () => {
     const { inputs, problems } = await resolveInputs(['season'], dir);
     expect(problems).toEqual([]);
     expect(inputs.map((i) => i.relativePath)).toEqual([join('day1', 'dive1.csv'), join('day1', 'dive2.gpx')]);
     expect(inputs[0]?.displayName).toBe(join('season', 'day1', 'dive1.csv'));
+  });
+
+  it('still reads a manifest or truth file named explicitly', async () => {
+    const { inputs } = await resolveInputs(['season/day1/dive1.truth.json'], dir);
+    expect(inputs.map((i) => i.relativePath)).toEqual(['dive1.truth.json']);
   });
 
   it('expands globs from their fixed prefix and removes duplicates', async () => {
