@@ -99,14 +99,16 @@ export function resolveFileTask(payload: ResolveTaskPayload): ResolveTaskResult 
 function renderTracks(tracks: Track[], payload: ResolveTaskPayload): string {
   const input = { tracks, waypoints: [] };
   const { setup, displayName } = payload;
-  const description = `re-solved with setup "${setup.name}"; every parameter and its source is in the .resolve.json report beside this file`;
+  // The setup travels inside every format that has room for it; CSV has none, so its setup is in
+  // the .resolve.json report and the run manifest beside it.
+  const description = `re-solved by Leadline with this setup (every parameter and its source): ${JSON.stringify(setup)}`;
   switch (payload.to) {
     case 'geojson':
       return withSetupInGeoJson(writeGeoJson(input), tracks, setup);
     case 'gpx':
       return writeGpx(input, { name: `${displayName} (re-solved)`, description });
     case 'kml':
-      return writeKml(input, { name: `${displayName} (re-solved: ${setup.name})` });
+      return withDescriptionInKml(writeKml(input, { name: `${displayName} (re-solved)` }), description);
     case 'csv': {
       if (payload.crs === undefined) return writeCsv(input);
       if (payload.crs.toLowerCase() !== 'utm') return writeCsv(input, { crs: resolveCrs(payload.crs) });
@@ -115,6 +117,16 @@ function renderTracks(tracks: Track[], payload: ResolveTaskPayload): string {
       return writeCsv(input, { crs: resolveCrs(chooseUtmZone(lat, lon).code) });
     }
   }
+}
+
+/** Adds a `description` after the KML Document's `name` (KML 2.2 Feature child order: name, …, description). */
+function withDescriptionInKml(text: string, description: string): string {
+  const escaped = description
+    .replace(/&/g, '&amp;')
+    .replace(/</g, '&lt;')
+    .replace(/>/g, '&gt;')
+    .replace(/"/g, '&quot;');
+  return text.replace(/^( {4}<name>.*<\/name>\n)/m, `$1    <description>${escaped}</description>\n`);
 }
 
 /** Adds the setup to each re-solved track's feature properties (RFC 7946 allows any properties). */

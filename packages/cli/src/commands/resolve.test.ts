@@ -1,3 +1,4 @@
+import { execFileSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -144,6 +145,22 @@ describe('runResolve', () => {
       2,
     );
     expect(unknown.err()).toContain('config setups: quay-q3');
+  });
+
+  it('carries the setup inside GPX and KML outputs, which xmllint accepts', async () => {
+    const setup = JSON.stringify(setupOf('quay-fixed-position'));
+    for (const to of ['gpx', 'kml'] as const) {
+      const out = join(dir, to);
+      expect(await runResolve(['quay-fixed-position.csv'], { ...baseOptions, setup, out, to }, capture(), IN)).toBe(0);
+      const path = join(out, `quay-fixed-position.resolved.${to}`);
+      const text = readFileSync(path, 'utf8');
+      expect(text).toContain('surveyed pole position, Hollowtide Subsea control point Q-3');
+      // Well-formed XML by the system's xmllint (libxml2), an outside reference tool; GPX also
+      // valid against the TopoGrafix GPX 1.1 schema vendored in core.
+      const schema = join(import.meta.dirname, '../../../core/src/read/schemas/gpx-1.1.xsd');
+      const args = to === 'gpx' ? ['--noout', '--schema', schema, path] : ['--noout', path];
+      expect(() => execFileSync('xmllint', args, { stdio: 'pipe' })).not.toThrow();
+    }
   });
 
   it('writes CSV with UTM coordinates when asked', async () => {
