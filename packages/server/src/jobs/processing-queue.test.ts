@@ -167,4 +167,35 @@ describe('startProcessingWorker', () => {
     expect(done).toMatchObject({ attempts: 2, reason: null });
     expect(failures).toBe(2);
   }, 30_000);
+
+  it('gives logs archived without a run (demo data, older archives) their first run when a worker starts', async () => {
+    for (const p of started.splice(1)) await p.stop();
+    const log = simulatedCsv(23);
+    const projectId = base.split('/').pop();
+    const [inserted] = await database
+      .db('logs')
+      .insert({
+        project_id: projectId,
+        original_file_name: log.name,
+        content: Buffer.from(log.text),
+        sha256: createHash('sha256').update(log.text).digest('hex'),
+        size_bytes: Buffer.byteLength(log.text),
+      })
+      .returning<{ id: string }[]>('id');
+    const logId = inserted?.id ?? '';
+    expect(await runsOf(editor, base, logId)).toEqual([]);
+    started.push(
+      await startProcessing({
+        databaseUrl: database.url,
+        db: database.db,
+        logger: pino({ level: 'silent' }),
+        pollingIntervalS: 0.5,
+      }),
+    );
+    const done = await until('the first run of the old log', async () => {
+      const [run] = await runsOf(editor, base, logId);
+      return run?.status === 'done' ? run : undefined;
+    });
+    expect(done).toMatchObject({ kind: 'process', attempts: 1 });
+  }, 30_000);
 });

@@ -1,6 +1,7 @@
 import PgBoss from 'pg-boss';
 import type { Logger } from 'pino';
 import {
+  auditSetupFromResolveSetup,
   PermanentProcessingError,
   type ProcessingDeps,
   type ProcessingHooks,
@@ -88,7 +89,8 @@ export interface ProcessingWorker {
  * Works processing jobs: one run at a time per worker. A permanent failure (unreadable log,
  * unknown profile) fails the run at once with its reason; any other error is retried with backoff
  * by pg-boss, the run going back to `queued` with the reason until the last attempt fails it.
- * Runs left `queued` without a job (the server stopped between storing and sending) are sent again.
+ * Runs left `queued` without a job (the server stopped between storing and sending) are sent again,
+ * and logs that never had a run (demo data, logs archived before processing) get their first one.
  */
 export async function startProcessingWorker(
   boss: PgBoss,
@@ -129,6 +131,18 @@ export async function startProcessingWorker(
   );
   const queue = createProcessingQueue(boss, deps.runs, options.settings);
   for (const { run, organisationId } of await deps.runs.queuedWithoutJob()) await queue.enqueue(run, organisationId);
+  for (const log of await deps.runs.logsWithoutRuns(10_000)) {
+    const run = await deps.runs.create({
+      projectId: log.projectId,
+      logId: log.logId,
+      kind: 'process',
+      auditProfile: log.auditProfile,
+      resolveSetup: null,
+      auditSetup: auditSetupFromResolveSetup(log.defaultSetup),
+      requestedBy: null,
+    });
+    await queue.enqueue(run, log.organisationId);
+  }
   return {
     wake: () => boss.notifyWorker(workerId),
     stop: () => boss.offWork(PROCESSING_QUEUE),

@@ -50,6 +50,12 @@ export interface ProcessingRunStore {
   fail(runId: string, reason: string): Promise<void>;
   /** Runs still `queued` that never reached the job queue (the server stopped between the two). */
   queuedWithoutJob(): Promise<Array<{ run: RunRecord; organisationId: string }>>;
+  /** Logs that never had a run (archived before processing existed, or loaded as demo data), oldest first. */
+  logsWithoutRuns(
+    limit: number,
+  ): Promise<
+    Array<{ logId: string; projectId: string; organisationId: string; auditProfile: string; defaultSetup: unknown }>
+  >;
 }
 
 interface RunRow {
@@ -154,8 +160,31 @@ export function createKnexProcessingRunStore(db: Knex): ProcessingRunStore {
         .join('projects as p', 'p.id', 'r.project_id')
         .where({ 'r.status': 'queued' })
         .whereNull('r.job_id')
+        // Not the runs an upload is sending right now.
+        .where('r.created_at', '<', db.raw(`now() - interval '30 seconds'`))
         .select('r.*', 'p.organisation_id');
       return rows.map((row) => ({ run: toRunRecord(row), organisationId: row.organisation_id }));
+    },
+    async logsWithoutRuns(limit) {
+      const rows: Array<{
+        log_id: string;
+        project_id: string;
+        organisation_id: string;
+        audit_profile: string;
+        default_setup: unknown;
+      }> = await db('logs as l')
+        .join('projects as p', 'p.id', 'l.project_id')
+        .whereNotExists(db('processing_runs as r').whereRaw('r.log_id = l.id').select(db.raw('1')))
+        .orderBy('l.uploaded_at')
+        .limit(limit)
+        .select('l.id as log_id', 'l.project_id', 'p.organisation_id', 'p.audit_profile', 'p.default_setup');
+      return rows.map((r) => ({
+        logId: r.log_id,
+        projectId: r.project_id,
+        organisationId: r.organisation_id,
+        auditProfile: r.audit_profile,
+        defaultSetup: r.default_setup,
+      }));
     },
   };
 }
