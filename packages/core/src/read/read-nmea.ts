@@ -181,15 +181,15 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
       body = src.slice(at + 1, to);
       withoutChecksum++;
     }
-    const sentence = src.slice(at, to);
     const fields = body.split(',');
     const address = fields[0] ?? '';
-    if (sentence.charCodeAt(0) === 33 || address.length < 5 || address.charCodeAt(0) === 80 /* P: proprietary */) {
+    if (src.charCodeAt(at) === 33 || address.length < 5 || address.charCodeAt(0) === 80 /* P: proprietary */) {
       unused.set(address, (unused.get(address) ?? 0) + 1);
       yield { kind: 'non-fix-row', line, why: 'sentence type not used' };
       continue;
     }
-    const type = address.slice(address.length - 3).toUpperCase();
+    const typeRaw = address.slice(address.length - 3);
+    const type = typeRaw === typeRaw.toUpperCase() ? typeRaw : typeRaw.toUpperCase();
     switch (type) {
       case 'GGA': {
         const tod = parseTimeOfDay(field(fields, 1));
@@ -339,7 +339,12 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
         const y = Number(field(fields, 4));
         const valid = tod !== undefined && /^\d{4}$/.test(field(fields, 4)) && d >= 1 && d <= 31 && m >= 1 && m <= 12;
         if (!valid) {
-          yield reject(line, 'unparsable-time', 'a ZDA with hhmmss.ss, day, month and 4-digit year', quote(sentence));
+          yield reject(
+            line,
+            'unparsable-time',
+            'a ZDA with hhmmss.ss, day, month and 4-digit year',
+            quote(src.slice(at, to)),
+          );
           continue;
         }
         flush();
