@@ -64,11 +64,11 @@ complete -o filenames -F _leadline leadline
 }
 
 function zshScript(program: Command): string {
-  const escape = (text: string) => text.replaceAll("'", "'\\''").replaceAll(':', '\\:');
-  const verbs = program.commands.map((c) => `'${c.name()}:${escape(c.description())}'`).join(' ');
+  const quote = (text: string) => text.replaceAll("'", "'\\''").replaceAll(':', '\\:');
+  const verbs = program.commands.map((c) => `'${c.name()}:${quote(c.description())}'`).join(' ');
   const cases = program.commands
     .map((c) => {
-      const flags = c.options.map((o) => `'${o.long ?? o.short}[${escape(o.description)}]'`).join(' ');
+      const flags = c.options.map((o) => `'${o.long ?? o.short}[${quote(o.description)}]'`).join(' ');
       return `    ${c.name()}) _arguments ${flags} '*:file:_files' ;;`;
     })
     .join('\n');

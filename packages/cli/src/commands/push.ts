@@ -92,7 +92,7 @@ export async function runPush(args: PushArgs, io: CliIo): Promise<number> {
   const outcomes = await runPool(inputs, args.jobs, async (input): Promise<PushResult> => {
     const bytes = await readInputBytes(input);
     const form = new FormData();
-    form.append('files', new Blob([bytes]), input.path === '-' ? 'stdin' : basename(input.path));
+    form.append('files', new Blob([new Uint8Array(bytes)]), input.path === '-' ? 'stdin' : basename(input.path));
     const body = await api.send('POST', `/organisations/${organisationId}/projects/${args.project}/logs`, form);
     const result = (
       body as {
