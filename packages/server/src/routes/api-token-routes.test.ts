@@ -153,6 +153,24 @@ describe('createApiTokenRoutes', () => {
       .expect(200);
   });
 
+  it('acts only in the organisation it was made in, even for a user who is admin elsewhere', async () => {
+    const { organisationId: elsewhere } = await seedOrganisation(database.db, 'Brinewater Diving', [
+      { email: 'tomas@hollowtide.example', role: 'admin' },
+    ]);
+    const tomas = await signedInAgent(testApp, 'tomas@hollowtide.example');
+    const { body } = await tomas
+      .post(`/api/v1/organisations/${organisationId}/tokens`)
+      .set(...SAME)
+      .send({ name: 'hollowtide only', scope: 'read-write' })
+      .expect(201);
+    await tomas.get(`/api/v1/organisations/${elsewhere}/members`).expect(200);
+    const refused = await request(testApp.app)
+      .get(`/api/v1/organisations/${elsewhere}/members`)
+      .set('Authorization', `Bearer ${body.token}`)
+      .expect(403);
+    expect(refused.body.error.message).toMatch(/another organisation/);
+  });
+
   it('refuses an unknown token and a non-bearer Authorization header with 401', async () => {
     await request(testApp.app).get('/api/v1/me').set('Authorization', 'Bearer llt_nothing').expect(401);
     const basic = await request(testApp.app).get('/api/v1/me').set('Authorization', 'Basic dTpw').expect(401);
