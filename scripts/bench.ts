@@ -392,6 +392,12 @@ benchmarks.push({
   },
 });
 
+// The archive (issue 9): background processing of a 7,200-fix dive and its track over HTTP, on PostgreSQL.
+benchmarks.push({
+  name: 'archive: upload, process and serve a 7,200-fix dive',
+  run: async () => (await import('./bench-archive.js')).runArchiveBench(),
+});
+
 for (const benchmark of benchmarks) {
   process.stdout.write(`${benchmark.name}: ${await benchmark.run()}\n`);
 }

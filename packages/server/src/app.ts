@@ -28,6 +28,7 @@ import { createOrganisationRoutes } from './routes/organisation-routes.js';
 import { createProjectRoutes } from './routes/project-routes.js';
 import { authenticateApiToken } from './services/api-token-service.js';
 import { type DiveDeps, queueLogProcessing } from './services/dive-service.js';
+import { RenderCache } from './services/render-cache.js';
 import type { ServiceContext } from './services/service-context.js';
 import { createKnexActivityStore } from './stores/activity-store.js';
 import { createKnexApiTokenStore } from './stores/api-token-store.js';
@@ -149,6 +150,7 @@ export function buildApp(deps: AppDependencies): BuiltApp {
     activity: ctx.activity,
     queue: deps.processingQueue,
     now: ctx.now,
+    trackCache: new RenderCache(64 * 1024 * 1024),
   };
   const routes: RouteSpec[] = [
     ...createHealthRoutes({ healthStore: ctx.health }),

@@ -20,6 +20,7 @@ import type { LogRecord, LogStore } from '../stores/log-store.js';
 import type { ProcessingRunStore, RunRecord } from '../stores/processing-run-store.js';
 import type { ProjectRecord, ProjectStore } from '../stores/project-store.js';
 import { auditSetupFromResolveSetup } from './processing-service.js';
+import type { RenderCache } from './render-cache.js';
 import { baseName, renderTracks, type TrackFormat } from './track-output.js';
 
 /** What the dive services reach. */
@@ -32,6 +33,16 @@ export interface DiveDeps {
   /** Absent when the app runs without a job queue: runs then wait as `queued` for a worker. */
   queue?: ProcessingQueue | undefined;
   now: () => Date;
+  /** Rendered track files by dive, result, format, variant and CRS (stored fixes never change). */
+  trackCache?: RenderCache<RenderedDiveTrack> | undefined;
+}
+
+/** A dive's track rendered as a file. */
+export interface RenderedDiveTrack {
+  fileName: string;
+  contentType: string;
+  text: string;
+  crsNote: string | undefined;
 }
 
 /** Which positions a download holds: as logged, smoothed, or re-solved. */
@@ -181,20 +192,33 @@ export async function downloadDiveTrack(
     variant: TrackVariant;
     crs?: string | undefined;
   },
-): Promise<{ fileName: string; contentType: string; text: string; crsNote: string | undefined }> {
+): Promise<RenderedDiveTrack> {
   const { project, dive } = await diveOf(deps, input.organisationId, input.projectId, input.diveId);
+  // Raw fixes never change; cleaned and re-solved ones follow the latest result (and the project's setup).
+  const key = [
+    dive.id,
+    input.format,
+    input.variant,
+    input.crs?.toUpperCase() ?? '',
+    input.variant === 'raw' ? '' : dive.latestResultId,
+    input.variant === 'resolved' ? JSON.stringify(project.defaultSetup) : '',
+  ].join('|');
+  const cached = deps.trackCache?.get(key);
+  if (cached !== undefined) return cached;
   const { vehicle, surface } = await variantTrack(deps, project, dive, input.variant);
   const name = diveFileName(dive, input.variant);
   const rendered = renderTracks(
     { tracks: surface === undefined ? [vehicle] : [vehicle, surface], waypoints: [] },
     { format: input.format, crs: input.crs, name, nowMs: deps.now().getTime() },
   );
-  return {
+  const file = {
     fileName: `${name}.${rendered.extension}`,
     contentType: rendered.contentType,
     text: rendered.text,
     crsNote: rendered.crsNote,
   };
+  deps.trackCache?.set(key, file);
+  return file;
 }
 
 /** `<log name>-dive-<nn>[-cleaned|-resolved]`. */

@@ -1,0 +1,160 @@
+// The archive's figures (issue 9): a 7,200-fix dive uploaded, processed in the background and
+// queryable; its stored fixes read back; its GeoJSON track served over loopback HTTP.
+// Runs against DATABASE_URL when set, else against a throwaway PostgreSQL it starts and stops.
+import { mkdtempSync, rmSync } from 'node:fs';
+import type { AddressInfo } from 'node:net';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import knex from 'knex';
+import pino from 'pino';
+import { MIGRATIONS_DIRECTORY } from '../knexfile.js';
+import { planSeason, simulatePlannedDive } from '../packages/core/src/index.js';
+import { startProcessing } from '../packages/server/src/jobs/start-processing.js';
+import { createKnexDiveStore } from '../packages/server/src/stores/dive-store.js';
+import { createTestApp, seedOrganisation, signedInAgent } from '../packages/server/src/testing/create-test-app.js';
+
+/** The helpers of scripts/lib/postgres.mjs that start a throwaway cluster (plain JavaScript). */
+interface PostgresHelpers {
+  ensurePostgres(): Promise<string>;
+  findFreePort(): Promise<number>;
+  startCluster(o: { bin: string; dataDir: string; port: number; throwaway: boolean }): Promise<{
+    port: number;
+    stop: () => Promise<void>;
+  }>;
+  ensureDatabase(o: { bin: string; port: number; name: string }): Promise<void>;
+  databaseUrl(port: number, name: string): string;
+}
+const POSTGRES_HELPERS = './lib/postgres.mjs';
+
+function percentile(values: number[], q: number): number {
+  const sorted = [...values].sort((a, b) => a - b);
+  return sorted[Math.min(sorted.length - 1, Math.ceil(q * sorted.length) - 1)] ?? Number.NaN;
+}
+
+/** Runs the archive benchmark and returns one line of figures. */
+export async function runArchiveBench(): Promise<string> {
+  let stopCluster = async () => {};
+  let dataDir: string | undefined;
+  let url = process.env.DATABASE_URL;
+  if (url === undefined) {
+    const { databaseUrl, ensureDatabase, ensurePostgres, findFreePort, startCluster } = (await import(
+      POSTGRES_HELPERS
+    )) as PostgresHelpers;
+    const bin = await ensurePostgres();
+    dataDir = mkdtempSync(join(tmpdir(), 'leadline-bench-pg-'));
+    const cluster = await startCluster({ bin, dataDir, port: await findFreePort(), throwaway: true });
+    stopCluster = cluster.stop;
+    await ensureDatabase({ bin, port: cluster.port, name: 'leadline_bench' });
+    url = databaseUrl(cluster.port, 'leadline_bench');
+  }
+  const connection: string = url;
+  const db = knex({ client: 'pg', connection, pool: { min: 0, max: 10 } });
+  try {
+    await db.migrate.latest({ directory: MIGRATIONS_DIRECTORY, loadExtensions: ['.ts'] });
+    const processing = await startProcessing({
+      databaseUrl: connection,
+      db,
+      logger: pino({ level: 'silent' }),
+      pollingIntervalS: 0.5,
+    });
+    const testApp = await createTestApp({ db, url: connection }, { processingQueue: processing.queue });
+    const { organisationId } = await seedOrganisation(db, `Hollowtide bench ${Date.now()}`, [
+      { email: 'bench@hollowtide.example', role: 'admin' },
+    ]);
+    const agent = await signedInAgent(testApp, 'bench@hollowtide.example');
+    const same = ['Sec-Fetch-Site', 'same-origin'] as const;
+    const project = await agent
+      .post(`/api/v1/organisations/${organisationId}/projects`)
+      .set(...same)
+      .send({ name: `Bench ${Date.now()}` });
+    const token = await agent
+      .post(`/api/v1/organisations/${organisationId}/tokens`)
+      .set(...same)
+      .send({ name: 'bench', scope: 'read-write', expiresInDays: 1 });
+    const server = testApp.app.listen(0, '127.0.0.1');
+    await new Promise((resolve) => server.once('listening', resolve));
+    const port = (server.address() as AddressInfo).port;
+    const base = `http://127.0.0.1:${port}/api/v1/organisations/${organisationId}/projects/${project.body.project.id}`;
+    const headers = { authorization: `Bearer ${token.body.token}` };
+
+    // 120-minute dives at 1 Hz: 7,200 fixes each, distinct bytes per seed (simulated before timing).
+    const uploads = 12;
+    const logs = planSeason({ seed: 7207, dives: uploads, diveMinutes: 120, dialect: 'csv' }).map((planned) => {
+      const [file] = simulatePlannedDive(planned).files;
+      if (file === undefined) throw new Error('no file');
+      return { name: file.name.split('/').pop() ?? file.name, text: file.text };
+    });
+    const endToEnd: number[] = [];
+    const workMs: number[] = [];
+    let diveId = '';
+    let fixCount = 0;
+    for (const log of logs) {
+      const t0 = performance.now();
+      const form = new FormData();
+      form.append('files', new Blob([log.text]), log.name);
+      const uploaded = (await (await fetch(`${base}/logs`, { method: 'POST', body: form, headers })).json()) as {
+        results: Array<{ log: { id: string } }>;
+      };
+      const logId = uploaded.results[0]?.log.id ?? '';
+      for (;;) {
+        const runs = (await (await fetch(`${base}/logs/${logId}/runs`, { headers })).json()) as {
+          runs: Array<{ status: string; startedAt: string; finishedAt: string }>;
+        };
+        const run = runs.runs[0];
+        if (run?.status === 'failed') throw new Error('processing failed');
+        if (run?.status === 'done') {
+          const list = (await (await fetch(`${base}/dives?logId=${logId}`, { headers })).json()) as {
+            dives: Array<{ id: string; fixCount: number }>;
+          };
+          endToEnd.push(performance.now() - t0);
+          workMs.push(Date.parse(run.finishedAt) - Date.parse(run.startedAt));
+          diveId = list.dives[0]?.id ?? '';
+          fixCount = list.dives[0]?.fixCount ?? 0;
+          break;
+        }
+        await new Promise((resolve) => setTimeout(resolve, 5));
+      }
+    }
+
+    // One dive's fixes from the database: one indexed read of one row.
+    const dives = createKnexDiveStore(db);
+    const readMs: number[] = [];
+    for (let i = 0; i < 30; i++) {
+      const t0 = performance.now();
+      await dives.tracks(diveId);
+      readMs.push(performance.now() - t0);
+    }
+
+    // GET of its GeoJSON track: 10 clients on loopback for 5 s.
+    const trackUrl = `${base}/dives/${diveId}/track?format=geojson`;
+    const latencies: number[] = [];
+    let bytes = 0;
+    const endAt = performance.now() + 5000;
+    await Promise.all(
+      Array.from({ length: 10 }, async () => {
+        while (performance.now() < endAt) {
+          const t0 = performance.now();
+          const response = await fetch(trackUrl, { headers });
+          bytes = (await response.arrayBuffer()).byteLength;
+          latencies.push(performance.now() - t0);
+        }
+      }),
+    );
+    server.close();
+    await processing.stop();
+    await testApp.close();
+    const f = (x: number) => x.toFixed(0);
+    return [
+      `${uploads} uploads of a ${fixCount}-fix dive, upload → processed → listed: p50 ${f(percentile(endToEnd, 0.5))} ms, p95 ${f(percentile(endToEnd, 0.95))} ms`,
+      `processing run alone (read, split, audit, summarise, store): p50 ${f(percentile(workMs, 0.5))} ms, p95 ${f(percentile(workMs, 0.95))} ms`,
+      `stored fixes read back: p50 ${percentile(readMs, 0.5).toFixed(1)} ms`,
+      `GET GeoJSON track (${(bytes / 1024).toFixed(0)} KiB), 10 clients 5 s: ${f(latencies.length / 5)} req/s, p50 ${f(percentile(latencies, 0.5))} ms, p99 ${f(percentile(latencies, 0.99))} ms`,
+    ].join('; ');
+  } finally {
+    await db.destroy();
+    await stopCluster();
+    if (dataDir !== undefined) rmSync(dataDir, { recursive: true, force: true });
+  }
+}
+
+if (import.meta.url === `file://${process.argv[1]}`) process.stdout.write(`${await runArchiveBench()}\n`);
