@@ -8,6 +8,7 @@ import type { UserStore } from '../stores/user-store.js';
 import { authorise, type Caller } from './authorise.js';
 import { checkSameOrigin } from './csrf.js';
 import { AppError } from './errors.js';
+import { createHashingStorage } from './hashing-storage.js';
 import { isStateChanging, type RouteSpec } from './route-table.js';
 
 declare module 'express-session' {
@@ -58,7 +59,7 @@ export function mountRoutes(routes: readonly RouteSpec[], deps: MountDependencie
       route.upload === undefined
         ? undefined
         : multer({
-            storage: multer.memoryStorage(),
+            storage: createHashingStorage(),
             defParamCharset: 'utf8',
             limits: { fileSize: deps.uploadLimitBytes, files: route.upload.maxFiles },
           }).array(route.upload.field, route.upload.maxFiles);

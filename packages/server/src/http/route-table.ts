@@ -1,6 +1,7 @@
 import type { Request, RequestHandler, Response } from 'express';
 import type { z } from 'zod';
 import type { Role } from '../services/roles.js';
+import type { HashedFile } from './hashing-storage.js';
 
 /**
  * Who may call a route: anyone; anyone signed in; a member with at least this role in the path's
@@ -38,8 +39,8 @@ export interface RouteInput<P extends z.ZodType, Q extends z.ZodType, B extends 
   query: z.output<Q>;
   body: z.output<B>;
   auth: AuthContext;
-  /** Files of a multipart upload route, in the order sent. */
-  files: Express.Multer.File[];
+  /** Files of a multipart upload route, in the order sent, each with the SHA-256 taken while it streamed in. */
+  files: HashedFile[];
 }
 
 /** One route of the API: everything the router, the OpenAPI document and the authorisation matrix need. */

@@ -258,7 +258,7 @@ export function createProjectRoutes(ctx: ServiceContext, stores: ProjectRouteSto
           organisationId: me.organisationId,
           projectId: params.projectId,
           actorUserId: me.userId,
-          files: files.map((f) => ({ fileName: f.originalname, content: f.buffer })),
+          files: files.map((f) => ({ fileName: f.originalname, content: f.buffer, sha256: f.sha256 })),
         });
         const status = results.some((r) => r.status === 'created')
           ? 201

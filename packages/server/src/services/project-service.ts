@@ -165,7 +165,8 @@ export async function uploadLogs(
     organisationId: string;
     projectId: string;
     actorUserId: string;
-    files: Array<{ fileName: string; content: Uint8Array }>;
+    /** `sha256` when the upload already hashed the bytes as they streamed in. */
+    files: Array<{ fileName: string; content: Uint8Array; sha256?: string | undefined }>;
   },
 ): Promise<UploadResult[]> {
   await getProject(deps, input.organisationId, input.projectId);
@@ -177,7 +178,7 @@ export async function uploadLogs(
       continue;
     }
     const format = detectFormat({ fileName: file.fileName, content: file.content }) ?? null;
-    const sha256 = createHash('sha256').update(file.content).digest('hex');
+    const sha256 = file.sha256 ?? createHash('sha256').update(file.content).digest('hex');
     const { log, created } = await deps.logs.insertOrFind({
       projectId: input.projectId,
       originalFileName: file.fileName,
