@@ -1,5 +1,5 @@
 import { stat } from 'node:fs/promises';
-import { isAbsolute, join, relative, resolve } from 'node:path';
+import { isAbsolute, relative, resolve } from 'node:path';
 import { glob, isDynamicPattern } from 'tinyglobby';
 
 /** One input a verb will process. */
@@ -75,7 +75,8 @@ function displayNameOf(path: string, cwd: string): string {
   return rel.startsWith('..') || isAbsolute(rel) ? path : rel;
 }
 
-// The folder part of a glob before its first wildcard, so `logs/**/*.csv` mirrors from `logs/`.
+// The folder part of a glob before its first wildcard, so `logs/**/*.csv` mirrors from `logs/` (and
+// `/data/**/*.csv` from `/data`: the leading slash of an absolute pattern is kept).
 function staticPrefix(pattern: string): string {
   const parts = pattern.split('/');
   const fixed: string[] = [];
@@ -84,5 +85,6 @@ function staticPrefix(pattern: string): string {
     fixed.push(part);
   }
   if (fixed.length === parts.length) fixed.pop();
-  return fixed.length === 0 ? '.' : join(...fixed);
+  const prefix = fixed.join('/');
+  return prefix === '' ? (pattern.startsWith('/') ? '/' : '.') : prefix;
 }

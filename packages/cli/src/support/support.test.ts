@@ -30,6 +30,12 @@ describe('resolveInputs', () => {
     expect(inputs[0]?.displayName).toBe(join('season', 'day1', 'dive1.csv'));
   });
 
+  it('keeps an absolute glob rooted where it says', async () => {
+    const { inputs } = await resolveInputs([`${dir}/season/**/*.gpx`], '/');
+    expect(inputs.map((i) => i.relativePath)).toEqual([join('day1', 'dive2.gpx')]);
+    expect(inputs[0]?.path).toBe(join(dir, 'season', 'day1', 'dive2.gpx'));
+  });
+
   it('still reads a manifest or truth file named explicitly', async () => {
     const { inputs } = await resolveInputs(['season/day1/dive1.truth.json'], dir);
     expect(inputs.map((i) => i.relativePath)).toEqual(['dive1.truth.json']);
