@@ -5,7 +5,7 @@ import { collectReadEvents } from './collect-read-events.js';
 import { decodeLogText } from './decode-log-text.js';
 import type { LogInput, LogReadResult, ReadOptions } from './log-read-result.js';
 import { parseDecimal } from './parse-csv-row-fast.js';
-import { LogTimeParser } from './parse-log-time.js';
+import { EARLIEST_TIME_MS, LATEST_TIME_MS, LogTimeParser } from './parse-log-time.js';
 import { type LogTextInput, refusedLog } from './read-csv.js';
 import type { ReadEvent } from './read-event.js';
 import { iterateLogLines } from './split-log-lines.js';
@@ -86,7 +86,13 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
     emitEpoch(epoch, dayMs as number);
   };
   const emitEpoch = (epoch: Epoch, day: number): void => {
-    const t = times.acceptUtc(day + epoch.todMs);
+    const timeMs = day + epoch.todMs;
+    if (timeMs >= EARLIEST_TIME_MS && timeMs < LATEST_TIME_MS) {
+      epoch.fix.timeMs = timeMs;
+      out.push({ kind: 'fix', fix: epoch.fix, line: epoch.line });
+      return;
+    }
+    const t = times.acceptUtc(timeMs);
     if (!t.ok) {
       out.push(reject(epoch.line, t.code, t.expected, new Date(day + epoch.todMs).toISOString()));
       return;
@@ -130,6 +136,7 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
     current = { todMs, line, fix, hasPosition: false };
     return current;
   };
+  const fields = new NmeaFields();
   for (const c of iterateLogLines(input.chunks)) {
     if (out.length > 0) {
       for (let k = 0; k < out.length; k++) yield out[k] as ReadEvent;
@@ -162,27 +169,26 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
     }
     if (to - at + 2 > NMEA_MAX_SENTENCE) overLength++;
     const star = src.lastIndexOf('*', to - 1);
-    let body: string;
+    let bodyEnd = to;
     if (star > at) {
-      body = src.slice(at + 1, star);
-      const computed = checksumOfRange(src, at + 1, star);
-      const given = src.slice(star + 1, Math.min(star + 3, to));
-      if (given !== computed && given.toUpperCase() !== computed) {
+      bodyEnd = star;
+      const x = xorOfRange(src, at + 1, star);
+      if (hexByteAt(src, star + 1, to) !== x) {
         yield reject(
           line,
           'bad-checksum',
-          `checksum ${computed} (XOR of the characters between $ and *)`,
+          `checksum ${HEX[(x >> 4) & 15]}${HEX[x & 15]} (XOR of the characters between $ and *)`,
           `*${src.slice(star + 1, to)}`,
           star - c.start + 1,
         );
         continue;
       }
     } else {
-      body = src.slice(at + 1, to);
       withoutChecksum++;
     }
-    const fields = body.split(',');
-    const address = fields[0] ?? '';
+    // fields are found in place and copied only when read (no split of every sentence)
+    fields.reset(src, at + 1, bodyEnd);
+    const address = fields.get(0);
     if (src.charCodeAt(at) === 33 || address.length < 5 || address.charCodeAt(0) === 80 /* P: proprietary */) {
       unused.set(address, (unused.get(address) ?? 0) + 1);
       yield { kind: 'non-fix-row', line, why: 'sentence type not used' };
@@ -192,19 +198,13 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
     const type = typeRaw === typeRaw.toUpperCase() ? typeRaw : typeRaw.toUpperCase();
     switch (type) {
       case 'GGA': {
-        const tod = parseTimeOfDay(field(fields, 1));
+        const tod = parseTimeOfDay(fields.get(1));
         if (tod === undefined) {
-          yield reject(
-            line,
-            'unparsable-time',
-            'a UTC time of day hhmmss.ss in GGA field 1',
-            quote(field(fields, 1)),
-            2,
-          );
+          yield reject(line, 'unparsable-time', 'a UTC time of day hhmmss.ss in GGA field 1', quote(fields.get(1)), 2);
           continue;
         }
-        const quality = field(fields, 6) === '' ? Number.NaN : Number(field(fields, 6));
-        if (quality === 0 || field(fields, 2) === '' || field(fields, 4) === '') {
+        const quality = fields.number(6);
+        if (quality === 0 || fields.isEmpty(2) || fields.isEmpty(4)) {
           yield reject(
             line,
             'no-fix',
@@ -213,16 +213,14 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
           );
           continue;
         }
-        const lat = parseNmeaCoordinate(field(fields, 2), field(fields, 3), 'lat');
-        const lon = parseNmeaCoordinate(field(fields, 4), field(fields, 5), 'lon');
+        const lat = parseNmeaCoordinate(fields.get(2), fields.get(3), 'lat');
+        const lon = parseNmeaCoordinate(fields.get(4), fields.get(5), 'lon');
         if (lat === undefined || lon === undefined) {
           yield reject(
             line,
             'unparsable-coordinate',
             lat === undefined ? 'latitude ddmm.mmmm with N or S' : 'longitude dddmm.mmmm with E or W',
-            quote(
-              lat === undefined ? `${field(fields, 2)},${field(fields, 3)}` : `${field(fields, 4)},${field(fields, 5)}`,
-            ),
+            quote(lat === undefined ? `${fields.get(2)},${fields.get(3)}` : `${fields.get(4)},${fields.get(5)}`),
           );
           continue;
         }
@@ -233,8 +231,8 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
           epoch.hasPosition = true;
         }
         if (!Number.isNaN(quality)) epoch.fix.quality = quality;
-        const altitude = Number(field(fields, 9));
-        if (field(fields, 9) !== '' && Number.isFinite(altitude)) {
+        const altitude = fields.number(9);
+        if (Number.isFinite(altitude)) {
           epoch.fix.depthM = -altitude + 0;
           altitudes++;
           if (altitude > 0) positiveAltitudes++;
@@ -242,19 +240,13 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
         break;
       }
       case 'RMC': {
-        const tod = parseTimeOfDay(field(fields, 1));
+        const tod = parseTimeOfDay(fields.get(1));
         if (tod === undefined) {
-          yield reject(
-            line,
-            'unparsable-time',
-            'a UTC time of day hhmmss.ss in RMC field 1',
-            quote(field(fields, 1)),
-            2,
-          );
+          yield reject(line, 'unparsable-time', 'a UTC time of day hhmmss.ss in RMC field 1', quote(fields.get(1)), 2);
           continue;
         }
-        const day = parseNmeaDate(field(fields, 9));
-        if (field(fields, 2) !== 'A' || field(fields, 3) === '' || field(fields, 5) === '') {
+        const day = parseNmeaDate(fields.get(9));
+        if (fields.get(2) !== 'A' || fields.get(3) === '' || fields.get(5) === '') {
           if (day !== undefined && current === undefined) {
             dayMs = day;
             lastTodMs = tod;
@@ -263,25 +255,23 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
             line,
             'no-fix',
             'an RMC with status A and a position',
-            field(fields, 2) === 'V' ? 'status V (warning, no valid fix)' : 'an empty position',
+            fields.get(2) === 'V' ? 'status V (warning, no valid fix)' : 'an empty position',
           );
           continue;
         }
-        const lat = parseNmeaCoordinate(field(fields, 3), field(fields, 4), 'lat');
-        const lon = parseNmeaCoordinate(field(fields, 5), field(fields, 6), 'lon');
+        const lat = parseNmeaCoordinate(fields.get(3), fields.get(4), 'lat');
+        const lon = parseNmeaCoordinate(fields.get(5), fields.get(6), 'lon');
         if (lat === undefined || lon === undefined) {
           yield reject(
             line,
             'unparsable-coordinate',
             lat === undefined ? 'latitude ddmm.mmmm with N or S' : 'longitude dddmm.mmmm with E or W',
-            quote(
-              lat === undefined ? `${field(fields, 3)},${field(fields, 4)}` : `${field(fields, 5)},${field(fields, 6)}`,
-            ),
+            quote(lat === undefined ? `${fields.get(3)},${fields.get(4)}` : `${fields.get(5)},${fields.get(6)}`),
           );
           continue;
         }
-        if (field(fields, 9) !== '' && day === undefined) {
-          yield reject(line, 'unparsable-time', 'an RMC date ddmmyy in field 9', quote(field(fields, 9)), 10);
+        if (fields.get(9) !== '' && day === undefined) {
+          yield reject(line, 'unparsable-time', 'an RMC date ddmmyy in field 9', quote(fields.get(9)), 10);
           continue;
         }
         const epoch = joinEpoch(tod, line);
@@ -291,20 +281,20 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
           epoch.hasPosition = true;
         }
         if (day !== undefined) epoch.dayMs = day;
-        const sog = Number(field(fields, 7));
-        if (field(fields, 7) !== '' && Number.isFinite(sog) && Number.isNaN(epoch.fix.speedMps ?? Number.NaN))
+        const sog = Number(fields.get(7));
+        if (fields.get(7) !== '' && Number.isFinite(sog) && Number.isNaN(epoch.fix.speedMps ?? Number.NaN))
           epoch.fix.speedMps = sog * MPS_PER_KNOT;
         break;
       }
       case 'VTG': {
         // Older form `$--VTG,x.x,x,x.x,x.x`: field 2 is not the literal T (NMEA Revealed, VTG).
-        const newer = field(fields, 2) === 'T' || field(fields, 2) === '';
-        const knots = Number(newer ? field(fields, 5) : field(fields, 3));
-        const kmh = Number(newer ? field(fields, 7) : field(fields, 4));
+        const newer = fields.get(2) === 'T' || fields.get(2) === '';
+        const knots = Number(newer ? fields.get(5) : fields.get(3));
+        const kmh = Number(newer ? fields.get(7) : fields.get(4));
         const speed =
-          (newer ? field(fields, 5) : field(fields, 3)) !== '' && Number.isFinite(knots)
+          (newer ? fields.get(5) : fields.get(3)) !== '' && Number.isFinite(knots)
             ? knots * MPS_PER_KNOT
-            : (newer ? field(fields, 7) : field(fields, 4)) !== '' && Number.isFinite(kmh)
+            : (newer ? fields.get(7) : fields.get(4)) !== '' && Number.isFinite(kmh)
               ? kmh / 3.6
               : Number.NaN;
         attach({ speedMps: speed });
@@ -312,19 +302,19 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
         break;
       }
       case 'HDT': {
-        const heading = Number(field(fields, 1));
-        if (field(fields, 1) !== '' && Number.isFinite(heading)) attach({ headingDeg: normaliseAzimuthDeg(heading) });
+        const heading = Number(fields.get(1));
+        if (fields.get(1) !== '' && Number.isFinite(heading)) attach({ headingDeg: normaliseAzimuthDeg(heading) });
         yield { kind: 'non-fix-row', line, why: 'HDT merged into the current fix' };
         break;
       }
       case 'HDG': {
-        const magnetic = Number(field(fields, 1));
-        const deviation = field(fields, 2) === '' ? 0 : Number(field(fields, 2)) * (field(fields, 3) === 'W' ? -1 : 1);
-        if (field(fields, 1) !== '' && Number.isFinite(magnetic)) {
-          if (field(fields, 4) === '') magneticWithoutVariation++;
+        const magnetic = Number(fields.get(1));
+        const deviation = fields.get(2) === '' ? 0 : Number(fields.get(2)) * (fields.get(3) === 'W' ? -1 : 1);
+        if (fields.get(1) !== '' && Number.isFinite(magnetic)) {
+          if (fields.get(4) === '') magneticWithoutVariation++;
           else {
             // true = magnetic + deviation + variation, east positive (NMEA HDG; from memory)
-            const variation = Number(field(fields, 4)) * (field(fields, 5) === 'W' ? -1 : 1);
+            const variation = Number(fields.get(4)) * (fields.get(5) === 'W' ? -1 : 1);
             const heading = magnetic + deviation + variation;
             if (Number.isFinite(heading)) attach({ headingDeg: normaliseAzimuthDeg(heading) });
           }
@@ -333,11 +323,11 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
         break;
       }
       case 'ZDA': {
-        const tod = parseTimeOfDay(field(fields, 1));
-        const d = Number(field(fields, 2));
-        const m = Number(field(fields, 3));
-        const y = Number(field(fields, 4));
-        const valid = tod !== undefined && /^\d{4}$/.test(field(fields, 4)) && d >= 1 && d <= 31 && m >= 1 && m <= 12;
+        const tod = parseTimeOfDay(fields.get(1));
+        const d = Number(fields.get(2));
+        const m = Number(fields.get(3));
+        const y = Number(fields.get(4));
+        const valid = tod !== undefined && /^\d{4}$/.test(fields.get(4)) && d >= 1 && d <= 31 && m >= 1 && m <= 12;
         if (!valid) {
           yield reject(
             line,
@@ -409,10 +399,75 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
 
 const HEX = '0123456789ABCDEF';
 
-function checksumOfRange(text: string, start: number, end: number): string {
+function xorOfRange(text: string, start: number, end: number): number {
   let x = 0;
   for (let i = start; i < end; i++) x ^= text.charCodeAt(i);
-  return (HEX[(x >> 4) & 15] as string) + (HEX[x & 15] as string);
+  return x;
+}
+
+function hexDigit(code: number): number {
+  if (code >= 48 && code <= 57) return code - 48;
+  if (code >= 65 && code <= 70) return code - 55;
+  if (code >= 97 && code <= 102) return code - 87;
+  return -1;
+}
+
+/** The two hex digits at `at` as a byte, or -1 when they are not two hex digits before `end`. */
+function hexByteAt(text: string, at: number, end: number): number {
+  if (at + 2 > end) return -1;
+  const high = hexDigit(text.charCodeAt(at));
+  const low = hexDigit(text.charCodeAt(at + 1));
+  return high < 0 || low < 0 ? -1 : high * 16 + low;
+}
+
+/** The comma-separated fields of one sentence body, located in place; `get` copies one field. */
+class NmeaFields {
+  #src = '';
+  #end = 0;
+  #count = 0;
+  readonly #starts = new Int32Array(64);
+
+  reset(src: string, start: number, end: number): void {
+    this.#src = src;
+    this.#end = end;
+    const starts = this.#starts;
+    let n = 0;
+    starts[n++] = start;
+    let at = start;
+    while (n < starts.length) {
+      const comma = src.indexOf(',', at);
+      if (comma < 0 || comma >= end) break;
+      at = comma + 1;
+      starts[n++] = at;
+    }
+    this.#count = n;
+  }
+
+  /** Whether field `i` is empty or missing. */
+  isEmpty(i: number): boolean {
+    if (i >= this.#count) return true;
+    const end = i + 1 < this.#count ? (this.#starts[i + 1] as number) - 1 : this.#end;
+    return end === this.#starts[i];
+  }
+
+  /** Field `i` as a number read in place, `NaN` when empty, missing or not a number. */
+  number(i: number): number {
+    if (this.isEmpty(i)) return Number.NaN;
+    const start = this.#starts[i] as number;
+    const end = i + 1 < this.#count ? (this.#starts[i + 1] as number) - 1 : this.#end;
+    const fast = parseDecimal(this.#src, start, end);
+    if (!Number.isNaN(fast)) return fast;
+    const value = Number(this.#src.slice(start, end));
+    return Number.isFinite(value) ? value : Number.NaN;
+  }
+
+  /** Field `i` (0 is the address), `''` beyond the last one (truncated trailing fields). */
+  get(i: number): string {
+    if (i >= this.#count) return '';
+    const start = this.#starts[i] as number;
+    const end = i + 1 < this.#count ? (this.#starts[i + 1] as number) - 1 : this.#end;
+    return this.#src.slice(start, end);
+  }
 }
 
 /** `hhmmss[.ss]` to milliseconds after midnight; `undefined` when malformed. */
@@ -438,10 +493,6 @@ function twoDigits(text: string, at: number): number {
   const a = text.charCodeAt(at) - 48;
   const b = text.charCodeAt(at + 1) - 48;
   return a < 0 || a > 9 || b < 0 || b > 9 ? -1 : a * 10 + b;
-}
-
-function field(fields: readonly string[], index: number): string {
-  return fields[index] ?? '';
 }
 
 /** `ddmmyy` to 00:00 UTC ms; two-digit years 80-99 are 19xx, 00-79 are 20xx (common practice for NMEA dates). */
