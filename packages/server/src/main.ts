@@ -47,6 +47,7 @@ const processing = await startProcessing({
   db,
   logger,
   worker: process.env.WORKER !== 'off',
+  mail: { mailer, publicUrl: config.publicUrl },
 });
 
 const app = createApp({

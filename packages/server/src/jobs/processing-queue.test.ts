@@ -6,6 +6,8 @@ import pino from 'pino';
 import type request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestDatabase } from '../../../../tests/support/test-database.js';
+import { startFakeSmtpServer } from '../mail/fake-smtp-server.js';
+import { createSmtpMailer } from '../mail/mailer.js';
 import { createTestApp, seedOrganisation, signedInAgent, type TestApp } from '../testing/create-test-app.js';
 import { type Processing, startProcessing } from './start-processing.js';
 
@@ -197,5 +199,55 @@ describe('startProcessingWorker', () => {
       return run?.status === 'done' ? run : undefined;
     });
     expect(done).toMatchObject({ kind: 'process', attempts: 1 });
+  }, 30_000);
+
+  it("mails the project's watchers when a dive fails its audit", async () => {
+    for (const p of started.splice(1)) await p.stop();
+    const mailbox = await startFakeSmtpServer();
+    const mailer = createSmtpMailer(mailbox.url, 'Leadline test <leadline@test.invalid>');
+    try {
+      started.push(
+        await startProcessing({
+          databaseUrl: database.url,
+          db: database.db,
+          logger: pino({ level: 'silent' }),
+          pollingIntervalS: 0.5,
+          mail: { mailer, publicUrl: 'http://leadline.test' },
+        }),
+      );
+      await editor
+        .put(`${base}/watchers/me`)
+        .set(...SAME)
+        .expect(204);
+      // An invented log whose every third fix jumps about 550 m: position jumps fail the audit.
+      const lines = ['time_utc,lat,lon,depth_m'];
+      for (let i = 0; i < 600; i++) {
+        const time = new Date(Date.UTC(2026, 5, 1, 10, 0, 0) + i * 1000).toISOString();
+        const jump = i % 3 === 0 ? 0.005 : 0;
+        lines.push(`${time},${(59.12 + jump + i * 1e-6).toFixed(7)},${(5.21 + i * 1e-6).toFixed(7)},20.0`);
+      }
+      const uploaded = await editor
+        .post(`${base}/logs`)
+        .set(...SAME)
+        .attach('files', Buffer.from(`${lines.join('\n')}\n`), 'jumpy-dive.csv')
+        .expect(201);
+      const logId: string = uploaded.body.results[0].log.id;
+      await until('the run to finish', async () => {
+        const [run] = await runsOf(editor, base, logId);
+        return run?.status === 'done' ? run : undefined;
+      });
+      const dives = await editor.get(`${base}/dives?logId=${logId}`).expect(200);
+      expect(dives.body.dives[0].verdict).toBe('fail');
+      const mail = await until('the notice', async () =>
+        mailbox.messages().find((m) => m.to.includes('tomas@hollowtide.example')),
+      );
+      expect(mail.subject).toMatch(/^Failed audit: dive 1, 2026-06-01 10:00 UTC/);
+      expect(mail.text).toContain('jumpy-dive.csv');
+      expect(mail.text).toContain(`http://leadline.test/dives/${dives.body.dives[0].id}`);
+      expect(mail.text).toMatch(/\[fail\] position-jump/);
+    } finally {
+      mailer.close();
+      await mailbox.close();
+    }
   }, 30_000);
 });

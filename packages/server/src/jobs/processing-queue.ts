@@ -1,5 +1,6 @@
 import PgBoss from 'pg-boss';
 import type { Logger } from 'pino';
+import type { FailedAudit } from '../services/audit-notice-service.js';
 import {
   auditSetupFromResolveSetup,
   PermanentProcessingError,
@@ -100,6 +101,8 @@ export async function startProcessingWorker(
     hooks?: ProcessingHooks;
     pollingIntervalS?: number;
     settings?: Partial<ProcessingJobSettings>;
+    /** Tells the project's watchers about a dive that failed its audit (after the run is stored). */
+    notify?: (audit: FailedAudit) => Promise<unknown>;
   } = {},
 ): Promise<ProcessingWorker> {
   const log = options.logger;
@@ -112,7 +115,12 @@ export async function startProcessingWorker(
         try {
           const started = Date.now();
           const outcome = await performRun(deps, runId, organisationId, options.hooks);
-          log?.info({ runId, outcome, ms: Date.now() - started }, 'processing run finished');
+          log?.info({ runId, status: outcome.status, ms: Date.now() - started }, 'processing run finished');
+          if (outcome.status === 'done' && options.notify !== undefined)
+            for (const audit of outcome.failedAudits)
+              await options
+                .notify(audit)
+                .catch((error: unknown) => log?.warn({ runId, err: error }, 'failed-audit notice not sent'));
         } catch (error) {
           const message = error instanceof Error ? error.message : String(error);
           if (error instanceof PermanentProcessingError) {

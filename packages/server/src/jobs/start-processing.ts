@@ -1,5 +1,7 @@
 import type { Knex } from 'knex';
 import type { Logger } from 'pino';
+import type { Mailer } from '../mail/mailer.js';
+import { type FailedAudit, notifyFailedAudit } from '../services/audit-notice-service.js';
 import type { ProcessingHooks } from '../services/processing-service.js';
 import { createKnexDiveStore } from '../stores/dive-store.js';
 import { createKnexLogStore } from '../stores/log-store.js';
@@ -34,19 +36,23 @@ export async function startProcessing(options: {
   settings?: Partial<ProcessingJobSettings>;
   pollingIntervalS?: number;
   maintenanceIntervalS?: number;
+  /** Mails failed-audit notices to the project's watchers; none are sent without it. */
+  mail?: { mailer: Mailer; publicUrl: string };
 }): Promise<Processing> {
   const boss = await startJobBoss(options.databaseUrl, {
     ...(options.logger === undefined ? {} : { logger: options.logger }),
     ...(options.maintenanceIntervalS === undefined ? {} : { maintenanceIntervalS: options.maintenanceIntervalS }),
   });
   const runs = createKnexProcessingRunStore(options.db);
+  const projects = createKnexProjectStore(options.db);
+  const mail = options.mail;
   const worker =
     options.worker === false
       ? undefined
       : await startProcessingWorker(
           boss,
           {
-            projects: createKnexProjectStore(options.db),
+            projects,
             logs: createKnexLogStore(options.db),
             runs,
             dives: createKnexDiveStore(options.db),
@@ -56,6 +62,9 @@ export async function startProcessing(options: {
             ...(options.hooks === undefined ? {} : { hooks: options.hooks }),
             ...(options.settings === undefined ? {} : { settings: options.settings }),
             ...(options.pollingIntervalS === undefined ? {} : { pollingIntervalS: options.pollingIntervalS }),
+            ...(mail === undefined
+              ? {}
+              : { notify: (audit: FailedAudit) => notifyFailedAudit({ projects, ...mail }, audit) }),
           },
         );
   const queue = createProcessingQueue(boss, runs, options.settings, worker?.wake);

@@ -19,6 +19,7 @@ import type { DiveStore, NewDive, NewDiveResult } from '../stores/dive-store.js'
 import type { LogStore } from '../stores/log-store.js';
 import type { ProcessingRunStore, RunRecord } from '../stores/processing-run-store.js';
 import type { ProjectStore } from '../stores/project-store.js';
+import type { FailedAudit } from './audit-notice-service.js';
 
 /** What processing reaches: the archive and the stores of runs and dives. */
 export interface ProcessingDeps {
@@ -38,8 +39,29 @@ export class PermanentProcessingError extends Error {
   override readonly name = 'PermanentProcessingError';
 }
 
-/** How a run ended when the worker is done with it. */
-export type RunOutcome = { status: 'done'; diveCount: number } | { status: 'skipped' };
+/** How a run ended when the worker is done with it; `failedAudits` are the dives whose verdict is fail. */
+export type RunOutcome = { status: 'done'; diveCount: number; failedAudits: FailedAudit[] } | { status: 'skipped' };
+
+function failedAudits(
+  organisationId: string,
+  projectId: string,
+  logFileName: string,
+  dives: Array<{ diveId: string; diveNumber: number; result: NewDiveResult }>,
+): FailedAudit[] {
+  return dives
+    .filter((d) => d.result.verdict === 'fail')
+    .map((d) => ({
+      organisationId,
+      projectId,
+      logFileName,
+      diveLabel: `dive ${d.diveNumber}${d.result.summary.startTime === null ? '' : `, ${d.result.summary.startTime.slice(0, 16).replace('T', ' ')} UTC`}`,
+      divePath: `/dives/${d.diveId}`,
+      findings: d.result.findings
+        .filter((f) => f.severity !== 'info')
+        .sort((a, b) => (a.severity === b.severity ? 0 : a.severity === 'fail' ? -1 : 1))
+        .map((f) => ({ check: f.check, severity: f.severity, message: f.message })),
+    }));
+}
 
 /** The audit setup a project's default re-solve setup implies: its transceiver draft. */
 export function auditSetupFromResolveSetup(setup: unknown): Record<string, unknown> {
@@ -184,12 +206,18 @@ export async function performRun(
     }
     await hooks.beforeStore?.(run);
     const ids = await deps.dives.storeProcessed(run.id, run.logId, run.projectId, dives);
-    return ids === undefined ? { status: 'skipped' } : { status: 'done', diveCount: ids.length };
+    if (ids === undefined) return { status: 'skipped' };
+    const stored = dives.map((d, k) => ({ diveId: ids[k] ?? '', diveNumber: d.diveNumber, result: d.result }));
+    return {
+      status: 'done',
+      diveCount: ids.length,
+      failedAudits: failedAudits(organisationId, run.projectId, log.originalFileName, stored),
+    };
   }
 
   const diveIds = run.diveId === null ? await deps.dives.diveIdsOfLog(run.logId) : [run.diveId];
-  const results: Array<{ diveId: string; result: NewDiveResult }> = [];
-  for (const diveId of diveIds) {
+  const results: Array<{ diveId: string; diveNumber: number; result: NewDiveResult }> = [];
+  for (const [k, diveId] of diveIds.entries()) {
     const tracks = await deps.dives.tracks(diveId);
     if (tracks === undefined) throw new PermanentProcessingError(`dive ${diveId} has no stored fixes`);
     const { result } = computeDiveResult({
@@ -200,9 +228,15 @@ export async function performRun(
       auditSetup,
       resolveSetup: run.resolveSetup,
     });
-    results.push({ diveId, result });
+    const diveNumber = run.diveId === null ? k + 1 : ((await deps.dives.find(run.projectId, diveId))?.diveNumber ?? 0);
+    results.push({ diveId, diveNumber, result });
   }
   await hooks.beforeStore?.(run);
   const stored = await deps.dives.storeReprocessed(run.id, results);
-  return stored ? { status: 'done', diveCount: results.length } : { status: 'skipped' };
+  if (!stored) return { status: 'skipped' };
+  return {
+    status: 'done',
+    diveCount: results.length,
+    failedAudits: failedAudits(organisationId, run.projectId, log.originalFileName, results),
+  };
 }
