@@ -67,9 +67,11 @@ export class FixColumnAppender {
   build(meta: { id: string; role: TrackRole; name?: string; provenance: Provenance }): Track {
     const n = this.#length;
     const columns = {} as FixColumns;
-    // right-sized already (a good capacity hint): hand the arrays over instead of copying them
+    // Nearly right-sized (a good capacity hint): hand the arrays over as views instead of copying
+    // them, at most 10 % of the buffer unused; otherwise copy to the exact length.
+    const keep = n >= 0.9 * this.#capacity;
     for (const name of FIX_COLUMN_NAMES)
-      columns[name] = n === this.#capacity ? this.#columns[name] : this.#columns[name].slice(0, n);
+      columns[name] = keep ? this.#columns[name].subarray(0, n) : this.#columns[name].slice(0, n);
     return {
       ...meta,
       length: n,
