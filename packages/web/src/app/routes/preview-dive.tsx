@@ -17,7 +17,7 @@ export function PreviewDivePage() {
     PREVIEW_FIX_LIMITS.min,
     PREVIEW_FIX_LIMITS.max,
   );
-  const seed = readInteger(params.get('seed'), 7, 0, 2 ** 31 - 1);
+  const seed = readInteger(params.get('seed'), 1, 0, 2 ** 31 - 1);
   const dive = usePreviewDive(fixCount, seed);
   const banner = (
     <div role="note" aria-label="Preview" className="rounded-lg border-2 border-dashed border-sand-deep bg-sand/25 p-4">
@@ -28,8 +28,10 @@ export function PreviewDivePage() {
         A dive simulated in your browser, not a dive from the archive
       </p>
       <p className="mt-1 text-sm text-abyss-soft">
-        The track, its noise and its faults are invented (seed {seed}, {fixCount.toLocaleString('en-GB')} fixes); the
-        findings list the injected faults. Nothing here was measured.
+        Core&rsquo;s simulator invented this dive (an invented site of the invented operator Hollowtide Subsea, seed{' '}
+        {seed}, about {fixCount.toLocaleString('en-GB')} fixes, with noise and injected faults); core&rsquo;s audit
+        found the findings. Nothing here was measured. Other dives: add <code>?seed=2</code> or{' '}
+        <code>?fixes=50000</code> to the address.
       </p>
     </div>
   );

@@ -1,6 +1,6 @@
 import { cleanup, fireEvent, render, screen, within } from '@testing-library/react';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
-import { createSampleDive } from '../preview/create-sample-dive';
+import { createSampleDive } from '../testing/create-sample-dive';
 import { DiveView } from './dive-view';
 
 beforeEach(() => {

@@ -2,7 +2,7 @@ import { cleanup, fireEvent, render, screen } from '@testing-library/react';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { createLocalGrid } from '../lib/grid-system';
 import { preparePlotData } from '../lib/prepare-plot-data';
-import { createSampleDive } from '../preview/create-sample-dive';
+import { createSampleDive } from '../testing/create-sample-dive';
 import { PlanView } from './plan-view';
 
 beforeEach(() => {

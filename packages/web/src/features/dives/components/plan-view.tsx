@@ -49,7 +49,7 @@ export function PlanView({ data, colourMode, grid, highlight, cursorIndex, descr
   const canvasRef = useRef<HTMLCanvasElement>(null);
   const size = useElementSize(containerRef, { width: 640, height: 420 });
   const [view, setView] = useState<PlanViewState>(() => fitView(data.bounds, size.width, size.height));
-  const [stats, setStats] = useState<PlanDrawStats | undefined>(undefined);
+  const [stats, setStats] = useState<(PlanDrawStats & { draws: number }) | undefined>(undefined);
   const fittedFor = useRef<{ data: PlotData; measured: boolean } | undefined>(undefined);
   const helpId = useId();
   const drawnFor = useRef<PlotData | undefined>(undefined);
@@ -105,9 +105,7 @@ export function PlanView({ data, colourMode, grid, highlight, cursorIndex, descr
         // Read by the browser test to report how long the page took to become usable.
         performance.mark('leadline:plan-first-draw', { detail: { fixes: data.n } });
       }
-      setStats((old) =>
-        old && old.drawnVertices === drawn.drawnVertices && old.markers === drawn.markers ? old : drawn,
-      );
+      setStats((old) => ({ ...drawn, draws: (old?.draws ?? 0) + 1 }));
     });
     return () => cancelAnimationFrame(frame);
   }, [data, view, size.width, size.height, colourMode, grid, highlight, cursorIndex]);
@@ -245,6 +243,7 @@ export function PlanView({ data, colourMode, grid, highlight, cursorIndex, descr
           data-testid="plan-canvas"
           data-metres-per-px={view.metresPerPx}
           data-drawn-vertices={stats?.drawnVertices ?? 0}
+          data-draw-count={stats?.draws ?? 0}
           data-highlight={highlight ? `${highlight[0]}-${highlight[1]}` : ''}
           className="block h-full w-full cursor-grab touch-none active:cursor-grabbing"
           style={{ width: '100%', height: '100%' }}

@@ -1,8 +1,18 @@
 import type { ColourMode } from '../types';
 import { classColours, colourClass, PLOT_COLOURS } from './colour-scale';
 import { formatClockUtc } from './format';
-import { niceStep, niceTicks, ticksWithin } from './nice-ticks';
+import { niceTicks, ticksWithin } from './nice-ticks';
 import type { PlotData } from './prepare-plot-data';
+
+// Clock-friendly tick steps: seconds, minutes and hours people count in.
+const TIME_STEPS_MS = [1, 2, 5, 10, 15, 30, 60, 120, 300, 600, 900, 1800, 3600, 7200, 10800, 21600, 43200, 86400].map(
+  (s) => s * 1000,
+);
+
+/** The smallest clock-friendly step at least `roughMs` (a day at most). */
+export function chooseTimeStepMs(roughMs: number): number {
+  return TIME_STEPS_MS.find((step) => step >= roughMs) ?? (TIME_STEPS_MS[TIME_STEPS_MS.length - 1] as number);
+}
 
 /** Margins of the profile plot, CSS px. */
 export const PROFILE_MARGIN = { left: 52, right: 12, top: 10, bottom: 26 } as const;
@@ -77,8 +87,7 @@ export function drawDepthProfile(ctx: CanvasRenderingContext2D, d: ProfileDrawin
   // Time grid and labels (UTC).
   if (data.timeRange) {
     const [t0, t1] = data.timeRange;
-    const minutes = niceStep((t1 - t0) / 60_000 / Math.max(2, Math.floor(w / 110)));
-    const stepMs = Math.max(1, minutes) * 60_000;
+    const stepMs = chooseTimeStepMs((t1 - t0) / Math.max(2, Math.floor(w / 110)));
     ctx.textAlign = 'center';
     ctx.textBaseline = 'top';
     for (const t of ticksWithin(t0, t1, stepMs)) {
@@ -87,7 +96,7 @@ export function drawDepthProfile(ctx: CanvasRenderingContext2D, d: ProfileDrawin
       ctx.moveTo(x, PROFILE_MARGIN.top);
       ctx.lineTo(x, plotBottom);
       ctx.stroke();
-      ctx.fillText(formatClockUtc(t).slice(0, 5), x, plotBottom + 6);
+      ctx.fillText(stepMs < 60_000 ? formatClockUtc(t) : formatClockUtc(t).slice(0, 5), x, plotBottom + 6);
     }
   }
 

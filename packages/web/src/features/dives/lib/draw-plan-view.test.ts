@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { decimateForScreen } from './draw-plan-view';
+import { capVertices, decimateForScreen } from './draw-plan-view';
 
 describe('decimateForScreen', () => {
   const view = { centreE: 0, centreN: 0, metresPerPx: 1 };
@@ -33,5 +33,28 @@ describe('decimateForScreen', () => {
     const east = Float64Array.from([0, 10, 20, 30, 40]);
     const north = new Float64Array(5);
     expect([...decimateForScreen(east, north, view, 400, 300, 0.75, 1, 3)]).toEqual([1, 2, 3]);
+  });
+});
+
+describe('capVertices', () => {
+  it('leaves a short list alone', () => {
+    const kept = Int32Array.from([0, 1, 2]);
+    expect(capVertices(kept, new Uint8Array(3), 10)).toBe(kept);
+  });
+
+  it('keeps every k-th vertex, the last, line breaks and flagged fixes within about the budget', () => {
+    const n = 10_000;
+    const kept = Int32Array.from({ length: n }, (_, i) => (i === 5000 ? -1 : i));
+    const severity = new Uint8Array(n);
+    severity[4321] = 2;
+    const capped = [...capVertices(kept, severity, 1000)];
+    expect(capped.length).toBeLessThanOrEqual(1010);
+    expect(capped.length).toBeGreaterThan(900);
+    expect(capped[0]).toBe(0);
+    expect(capped[capped.length - 1]).toBe(n - 1);
+    expect(capped).toContain(4321);
+    // The fix before a break and the break itself survive.
+    expect(capped).toContain(4999);
+    expect(capped).toContain(-1);
   });
 });

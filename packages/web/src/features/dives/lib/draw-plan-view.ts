@@ -1,9 +1,15 @@
 import type { ColourMode } from '../types';
-import { COLOUR_CLASSES, classColours, colourClass, PLOT_COLOURS } from './colour-scale';
+import { classColours, colourClass, PLOT_COLOURS } from './colour-scale';
 import type { GridSystem } from './grid-system';
 import { niceStep, ticksWithin } from './nice-ticks';
 import type { PlanViewState } from './plan-view-state';
 import type { PlotData } from './prepare-plot-data';
+
+/**
+ * Lines are stroked in runs of at most this many vertices: a software rasteriser outlines one long,
+ * self-crossing stroke (a vehicle holding station, a boat wandering) far more slowly than many short ones.
+ */
+const RUN_VERTICES = 64;
 
 /** What one drawing of the plan view shows. */
 export interface PlanDrawing {
@@ -76,6 +82,25 @@ export function decimateForScreen(
   return out.subarray(0, count);
 }
 
+/**
+ * Caps the vertices to stroke at `budget`: when screen-space decimation still leaves more (white
+ * position noise moves every fix by a pixel or more), keeps every k-th vertex plus every flagged
+ * fix and every line break, so a noisy 5 Hz track draws as a band of the same shape at bounded cost.
+ */
+export function capVertices(kept: Int32Array, severity: Uint8Array | undefined, budget: number): Int32Array {
+  if (kept.length <= budget) return kept;
+  const stride = Math.ceil(kept.length / budget);
+  const out = new Int32Array(kept.length);
+  let count = 0;
+  for (let k = 0; k < kept.length; k++) {
+    const i = kept[k] as number;
+    const last = k === kept.length - 1;
+    const next = kept[k + 1];
+    if (i < 0 || k % stride === 0 || last || next === -1 || (severity?.[i] ?? 0) > 0) out[count++] = i;
+  }
+  return out.subarray(0, count);
+}
+
 function drawGrid(ctx: CanvasRenderingContext2D, d: PlanDrawing): void {
   const { view, widthPx: w, heightPx: h, grid } = d;
   // The visible area's outline in grid coordinates (8 points: corners and edge midpoints).
@@ -91,7 +116,9 @@ function drawGrid(ctx: CanvasRenderingContext2D, d: PlanDrawing): void {
   const maxX = Math.max(...xs);
   const minY = Math.min(...ys);
   const maxY = Math.max(...ys);
-  const step = niceStep((Math.max(w, h) * view.metresPerPx) / Math.max(2, Math.round(Math.max(w, h) / 120)));
+  // About one line per 100 px along the shorter side, so both axes get several labels.
+  const shorter = Math.min(w, h);
+  const step = niceStep((shorter * view.metresPerPx) / Math.max(2, Math.round(shorter / 100)));
   const samples = 12;
   ctx.save();
   ctx.lineWidth = 1;
@@ -181,58 +208,98 @@ export function drawPlanView(ctx: CanvasRenderingContext2D, d: PlanDrawing): Pla
   const scale = 1 / view.metresPerPx;
   const sx = (e: number) => w / 2 + (e - view.centreE) * scale;
   const sy = (n: number) => h / 2 - (n - view.centreN) * scale;
-  ctx.lineJoin = 'round';
-  ctx.lineCap = 'round';
+  // Bevel joins and butt caps: round ones multiply the rasteriser's work on dense tracks for no
+  // visible gain at 2 px.
+  ctx.lineJoin = 'bevel';
+  ctx.lineCap = 'butt';
 
   // The surface unit's track: dashed, under the vehicle's.
   if (data.surfaceEastM.length > 1) {
-    const kept = decimateForScreen(data.surfaceEastM, data.surfaceNorthM, view, w, h);
+    // Coarser than the vehicle's: a dashed stroke over thousands of tiny steps is slow to draw and
+    // a boat's wander around its held position reads just as well at 3 px.
+    const kept = capVertices(
+      decimateForScreen(data.surfaceEastM, data.surfaceNorthM, view, w, h, 3),
+      undefined,
+      Math.max(1000, 2 * (w + h)),
+    );
     ctx.save();
     ctx.strokeStyle = PLOT_COLOURS.surface;
     ctx.lineWidth = 1.5;
     ctx.setLineDash([6, 4]);
+    // Stroked in short runs, as the vehicle's track below.
+    let run = 0;
+    let lastX = Number.NaN;
+    let lastY = Number.NaN;
     ctx.beginPath();
-    let pen = false;
     for (const i of kept) {
       if (i < 0) {
-        pen = false;
+        lastX = Number.NaN;
         continue;
       }
       const x = sx(data.surfaceEastM[i] as number);
       const y = sy(data.surfaceNorthM[i] as number);
-      if (pen) ctx.lineTo(x, y);
-      else ctx.moveTo(x, y);
-      pen = true;
+      if (Number.isNaN(lastX)) ctx.moveTo(x, y);
+      else ctx.lineTo(x, y);
+      lastX = x;
+      lastY = y;
+      if (++run >= RUN_VERTICES) {
+        ctx.stroke();
+        ctx.beginPath();
+        ctx.moveTo(lastX, lastY);
+        run = 0;
+      }
     }
     ctx.stroke();
     ctx.restore();
   }
 
   // The vehicle's track, one path per colour class.
-  const kept = decimateForScreen(data.eastM, data.northM, view, w, h);
+  const kept = capVertices(
+    decimateForScreen(data.eastM, data.northM, view, w, h, 1.25),
+    data.severity,
+    Math.max(2000, 5 * (w + h)),
+  );
   const colourValues = d.colourMode === 'depth' ? data.depthM : data.timeMs;
   const colourRange = d.colourMode === 'depth' ? data.depthRange : data.timeRange;
   const [cMin, cMax] = colourRange ?? [0, 0];
   const colours = classColours(d.colourMode);
-  const paths = Array.from({ length: COLOUR_CLASSES }, () => new Path2D());
+  // One continuous run per stretch of a colour class: far fewer caps and sub-paths to rasterise
+  // than one segment per fix.
+  ctx.lineWidth = 2;
+  let path = new Path2D();
   let previous = -1;
+  let runClass = -1;
+  let runLength = 0;
+  const flush = () => {
+    if (runClass >= 0 && runLength > 0) {
+      ctx.strokeStyle = colours[runClass] as string;
+      ctx.stroke(path);
+    }
+    path = new Path2D();
+    runLength = 0;
+  };
   for (const i of kept) {
     if (i < 0) {
+      flush();
       previous = -1;
+      runClass = -1;
       continue;
     }
+    const x = sx(data.eastM[i] as number);
+    const y = sy(data.northM[i] as number);
     if (previous >= 0) {
-      const path = paths[colourClass(colourValues[i] as number, cMin, cMax)] as Path2D;
-      path.moveTo(sx(data.eastM[previous] as number), sy(data.northM[previous] as number));
-      path.lineTo(sx(data.eastM[i] as number), sy(data.northM[i] as number));
+      const cls = colourClass(colourValues[i] as number, cMin, cMax);
+      if (cls !== runClass || runLength >= RUN_VERTICES) {
+        flush();
+        runClass = cls;
+        path.moveTo(sx(data.eastM[previous] as number), sy(data.northM[previous] as number));
+      }
+      path.lineTo(x, y);
+      runLength++;
     }
     previous = i;
   }
-  ctx.lineWidth = 2;
-  paths.forEach((path, c) => {
-    ctx.strokeStyle = colours[c] as string;
-    ctx.stroke(path);
-  });
+  flush();
 
   // The chosen span: a sand halo with the track drawn dark on top.
   if (d.highlight) {
