@@ -106,7 +106,8 @@ export async function startProcessingWorker(
   } = {},
 ): Promise<ProcessingWorker> {
   const log = options.logger;
-  const workerId = await boss.work<ProcessingJobData>(
+  let workerId: string | undefined;
+  workerId = await boss.work<ProcessingJobData>(
     PROCESSING_QUEUE,
     { includeMetadata: true, batchSize: 1, pollingIntervalSeconds: options.pollingIntervalS ?? 2 },
     async (jobs) => {
@@ -135,6 +136,8 @@ export async function startProcessingWorker(
           throw error;
         }
       }
+      // pg-boss waits a polling interval even after a fetch that found work; fetch again at once.
+      if (workerId !== undefined) boss.notifyWorker(workerId);
     },
   );
   const queue = createProcessingQueue(boss, deps.runs, options.settings);
@@ -152,7 +155,9 @@ export async function startProcessingWorker(
     await queue.enqueue(run, log.organisationId);
   }
   return {
-    wake: () => boss.notifyWorker(workerId),
+    wake: () => {
+      if (workerId !== undefined) boss.notifyWorker(workerId);
+    },
     stop: () => boss.offWork(PROCESSING_QUEUE),
   };
 }

@@ -180,7 +180,14 @@ export async function performRun(
     const content = await deps.logs.content(run.projectId, run.logId);
     if (content === undefined) throw new PermanentProcessingError('the log was deleted before it was processed');
     const read = permanent('reading the log', () =>
-      readLog({ fileName: log.originalFileName, content }, { timeZone: project.timeZone }),
+      // Local times are read in the project's zone, projected coordinates in the project's CRS.
+      readLog(
+        { fileName: log.originalFileName, content },
+        {
+          timeZone: project.timeZone,
+          ...(project.defaultCrs === null ? {} : { inputCrs: project.defaultCrs }),
+        },
+      ),
     );
     const vehicles = read.tracks.filter((t) => t.role === 'vehicle');
     const surface = read.tracks.find((t) => t.role === 'surface');
