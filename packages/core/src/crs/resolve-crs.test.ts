@@ -46,6 +46,30 @@ describe('resolveCrs', () => {
     expect(() => resolveCrs('EPSG:4267')).toThrow(/NTv2_0\.gsb/);
   });
 
+  it('keeps the NZGD49 Helmert fallback within its stated (measured) accuracy of the real grid', () => {
+    const grid = '/usr/share/proj/nzgd2kgrid0005.gsb';
+    if (!existsSync(grid)) {
+      if (process.env.CI) throw new Error(`${grid} (Debian proj-data) is missing`);
+      console.warn(`skipping the NZGD49 grid check: ${grid} (Debian proj-data) is not installed`);
+      return;
+    }
+    const withGrid = resolveCrs('EPSG:27200', { grids: { 'nzgd2kgrid0005.gsb': new Uint8Array(readFileSync(grid)) } });
+    const fallback = resolveCrs('EPSG:27200');
+    const random = seededRandom(27200);
+    const n = 500;
+    const lon = Float64Array.from({ length: n }, () => 166.4 + random() * 12.2);
+    const lat = Float64Array.from({ length: n }, () => -47.3 + random() * 13.2);
+    const a = createReprojection(withGrid).forward(lon, lat);
+    const b = createReprojection(fallback).forward(lon, lat);
+    let worstM = 0;
+    for (let i = 0; i < n; i++)
+      worstM = Math.max(
+        worstM,
+        Math.hypot((a.x[i] as number) - (b.x[i] as number), (a.y[i] as number) - (b.y[i] as number)),
+      );
+    expect(worstM).toBeLessThanOrEqual(fallback.accuracyM ?? 0);
+  });
+
   const betaGrid = '/usr/share/proj/BETA2007.gsb';
   const haveGrid = existsSync(betaGrid);
   it('uses a grid the caller supplies, and the DHDN Helmert fallback stays within its stated accuracy of it', () => {
