@@ -1,0 +1,39 @@
+import { parse } from 'csv-parse/sync';
+import { describe, expect, it } from 'vitest';
+import { resolveCrs } from '../crs/resolve-crs.js';
+import { trackOf } from '../geodesy/track-fixture.test-helper.js';
+import { writeCsv } from './write-csv.js';
+
+describe('writeCsv', () => {
+  const track = trackOf([
+    { timeMs: Date.UTC(2026, 2, 3, 4, 5, 6, 7), latDeg: 30.27, lonDeg: -97.74, depthM: 3 },
+    { timeMs: Date.UTC(2026, 2, 3, 4, 5, 7, 7), latDeg: 30.2701, lonDeg: -97.7401 },
+  ]);
+
+  it('names projected columns with the CRS unit (US survey feet for NAD83 / Texas Central ftUS)', () => {
+    const crs = resolveCrs('EPSG:2277');
+    expect(crs.unit).toMatch(/US survey foot/i);
+    const rows = parse(writeCsv({ tracks: [track], waypoints: [] }, { crs })) as string[][];
+    expect(rows[0]).toEqual([
+      'track',
+      'role',
+      'segment',
+      'name',
+      'time',
+      'lat',
+      'lon',
+      'easting_us_ft',
+      'northing_us_ft',
+      'depth_m',
+    ]);
+    // Austin lies near the zone's false origin area: millions of feet east, not metres.
+    expect(Number(rows[1]?.[7])).toBeGreaterThan(3_000_000);
+  });
+
+  it('writes ISO 8601 UTC times, empty cells for missing values and RFC 4180 line ends', () => {
+    const text = writeCsv({ tracks: [track], waypoints: [] });
+    expect(text.split('\r\n')[1]).toBe('dive-1,vehicle,1,,2026-03-03T04:05:06.007Z,30.27,-97.74,3');
+    expect(text.split('\r\n')[2]).toMatch(/,$/); // depth missing: empty, never NaN
+    expect(text).not.toMatch(/NaN/);
+  });
+});
