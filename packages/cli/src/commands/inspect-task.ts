@@ -117,11 +117,16 @@ export async function inspectFileTask(payload: InspectTaskPayload): Promise<Insp
     };
   }
   const fixCount = read.tracks.reduce((n, t) => n + t.length, 0);
+  const refusedWhole =
+    fixCount === 0 &&
+    read.rejections.length === 1 &&
+    ['empty-file', 'binary-content', 'unknown-format'].includes(read.rejections[0]?.code ?? '');
   const report: InspectFileReport = {
     file: payload.displayName,
     ok: fixCount > 0 || read.waypoints.length > 0,
-    format: read.format,
-    dialect: read.dialect,
+    // a log refused before any reader ran has no format to speak of
+    format: refusedWhole ? null : read.format,
+    dialect: refusedWhole ? null : read.dialect,
     rowCount: read.rowCount,
     nonFixRowCount: read.nonFixRowCount,
     fixCount,

@@ -35,7 +35,7 @@ describe('runInspect', () => {
     expect(reports.map((r) => [r.file, r.ok, r.format, r.fixCount, r.rejectionCount])).toEqual([
       ['gpx-1.1-two-tracks.gpx', true, 'gpx', 5, 0],
       ['csv-bad-rows.csv', true, 'csv', 2, 13],
-      ['binary-garbage.bin', false, 'csv', 0, 1],
+      ['binary-garbage.bin', false, null, 0, 1],
     ]);
     const [gpx, csv] = reports as [InspectFileReport, InspectFileReport];
     expect(gpx.start).toBe('2026-06-01T10:00:00.000Z');
