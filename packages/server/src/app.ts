@@ -151,6 +151,11 @@ export function buildApp(deps: AppDependencies): BuiltApp {
     queue: deps.processingQueue,
     now: ctx.now,
     trackCache: new RenderCache(64 * 1024 * 1024),
+    membership: {
+      roleOf: (organisationId, userId) => ctx.users.roleOf(organisationId, userId),
+      tokenBelongsTo: async (organisationId, tokenId) =>
+        (await ctx.tokens.findById(organisationId, tokenId)) !== undefined,
+    },
   };
   const routes: RouteSpec[] = [
     ...createHealthRoutes({ healthStore: ctx.health }),

@@ -107,6 +107,7 @@ const INTENDED_ACCESS: Record<string, string> = {
   'POST /organisations/:organisationId/projects/:projectId/logs/:logId/reprocess': 'editor',
   'GET /organisations/:organisationId/projects/:projectId/dive-archive': 'viewer',
   'POST /convert': 'signed-in',
+  'GET /dives/:diveId': 'signed-in',
 };
 
 const RANK: Record<Role, number> = { viewer: 0, editor: 1, admin: 2 };

@@ -258,6 +258,20 @@ describe('createDiveRoutes', () => {
     expect(resolved.headers['content-disposition']).toMatch(/-resolved\.csv"/);
   });
 
+  it("serves the web's dive view to members only, with columns as long as the audited track", async () => {
+    const view = (await viewer.get(`/api/v1/dives/${diveId}`).expect(200)).body;
+    const n = view.fixes.timeMs.length;
+    expect(n).toBeGreaterThan(1000);
+    for (const name of ['latDeg', 'lonDeg', 'depthM', 'severity']) expect(view.fixes[name]).toHaveLength(n);
+    expect(view).toMatchObject({ id: diveId, logFileName: log.name, projectName: 'Skarvfjord pipeline survey' });
+    expect(view.summary.fixCount).toBe(n);
+    expect(view.s44.map((s: { order: string }) => s.order)).toEqual(['exclusive', 'special', '1a', '1b', '2']);
+    for (const f of view.findings) expect(f.endIndex).toBeLessThan(n);
+    await seedOrganisation(database.db, 'Brinewater Diving', [{ email: 'odile@brinewater.example', role: 'admin' }]);
+    const outsider = await signedInAgent(testApp, 'odile@brinewater.example');
+    await outsider.get(`/api/v1/dives/${diveId}`).expect(404);
+  });
+
   it('reprocesses a whole log as one more run', async () => {
     await editor
       .post(`${base}/logs/${logId}/reprocess`)

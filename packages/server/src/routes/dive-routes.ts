@@ -15,6 +15,7 @@ import {
   reprocessDive,
   reprocessLog,
 } from '../services/dive-service.js';
+import { getDiveView } from '../services/dive-view-service.js';
 import { attachment, TRACK_FORMATS } from '../services/track-output.js';
 import { DIVE_SORTS, type DiveQuery, type DiveRecord, type DiveResultRecord } from '../stores/dive-store.js';
 import type { RunRecord } from '../stores/processing-run-store.js';
@@ -201,7 +202,27 @@ function toQuery(projectId: string, q: z.output<typeof DiveListQuery>): DiveQuer
 
 /** Dives of a project: lists, one dive with its history, track and report downloads, reprocessing, the zip. */
 export function createDiveRoutes(deps: DiveDeps): RouteSpec[] {
+  const membership = deps.membership;
   return [
+    ...(membership === undefined
+      ? []
+      : [
+          defineRoute({
+            method: 'get',
+            path: '/dives/:diveId',
+            summary:
+              "One dive as the web's dive page draws it: audited fixes as columns, per-fix severity, findings, summary, S-44 shares",
+            tag: 'Dives',
+            access: 'signed-in',
+            params: z.object({ diveId: UuidSchema }),
+            responses: {
+              200: { description: 'The dive with its fixes', schema: z.record(z.string(), z.unknown()) },
+            },
+            async handler({ params, auth }, _req, res) {
+              res.json(await getDiveView({ dives: deps.dives, membership }, auth, params.diveId));
+            },
+          }),
+        ]),
     defineRoute({
       method: 'get',
       path: '/organisations/:organisationId/projects/:projectId/dives',

@@ -19,6 +19,7 @@ import type { DiveQuery, DiveRecord, DiveResultRecord, DiveStore } from '../stor
 import type { LogRecord, LogStore } from '../stores/log-store.js';
 import type { ProcessingRunStore, RunRecord } from '../stores/processing-run-store.js';
 import type { ProjectRecord, ProjectStore } from '../stores/project-store.js';
+import type { MembershipCheck } from './dive-view-service.js';
 import { auditSetupFromResolveSetup } from './processing-service.js';
 import type { RenderCache } from './render-cache.js';
 import { baseName, renderTracks, type TrackFormat } from './track-output.js';
@@ -35,6 +36,8 @@ export interface DiveDeps {
   now: () => Date;
   /** Rendered track files by dive, result, format, variant and CRS (stored fixes never change). */
   trackCache?: RenderCache<RenderedDiveTrack> | undefined;
+  /** Membership checks for the dive view outside an organisation's path. */
+  membership?: MembershipCheck | undefined;
 }
 
 /** A dive's track rendered as a file. */

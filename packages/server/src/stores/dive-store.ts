@@ -106,6 +106,17 @@ export interface DiveStore {
   storeReprocessed(runId: string, results: Array<{ diveId: string; result: NewDiveResult }>): Promise<boolean>;
   list(query: DiveQuery): Promise<{ dives: DiveRecord[]; total: number }>;
   find(projectId: string, diveId: string): Promise<DiveRecord | undefined>;
+  /** A dive by id alone, with its project's organisation, name, site and CRS (for routes outside an organisation). */
+  findWithProject(diveId: string): Promise<
+    | {
+        dive: DiveRecord;
+        organisationId: string;
+        projectName: string;
+        site: string | null;
+        defaultCrs: string | null;
+      }
+    | undefined
+  >;
   diveIdsOfLog(logId: string): Promise<string[]>;
   tracks(diveId: string): Promise<{ vehicle: Track; surface: Track | undefined } | undefined>;
   /** A dive's results, newest first. */
@@ -433,6 +444,22 @@ export function createKnexDiveStore(db: Knex): DiveStore {
         .where({ 'd.project_id': projectId, 'd.id': diveId })
         .first(DIVE_COLUMNS);
       return row === undefined ? undefined : toDive(row);
+    },
+    async findWithProject(diveId) {
+      const row:
+        | (DiveRow & { organisation_id: string; project_name: string; site: string | null; default_crs: string | null })
+        | undefined = await base()
+        .join('projects as p', 'p.id', 'd.project_id')
+        .where({ 'd.id': diveId })
+        .first([...DIVE_COLUMNS, 'p.organisation_id', 'p.name as project_name', 'p.site', 'p.default_crs']);
+      if (row === undefined) return undefined;
+      return {
+        dive: toDive(row),
+        organisationId: row.organisation_id,
+        projectName: row.project_name,
+        site: row.site,
+        defaultCrs: row.default_crs,
+      };
     },
     async diveIdsOfLog(logId) {
       const rows: Array<{ id: string }> = await db('dives')
