@@ -415,20 +415,26 @@ export function createDiveRoutes(deps: DiveDeps): RouteSpec[] {
         res.setHeader('Content-Type', 'application/zip');
         res.setHeader('Content-Disposition', attachment(`dives-${query.format}.zip`));
         zip.outputStream.pipe(res);
-        // One dive at a time: only one track is in memory while the zip streams out.
+        // One dive at a time: only one track is in memory while the zip streams out. Once the zip
+        // has started no error body can follow, so a failure cuts the response (the client sees a broken zip).
         const used = new Set<string>();
-        for (const dive of dives) {
-          const file = await downloadDiveTrack(deps, {
-            organisationId: me.organisationId,
-            projectId: params.projectId,
-            diveId: dive.id,
-            format: query.format,
-            variant: 'raw',
-          });
-          let name = file.fileName;
-          if (used.has(name)) name = `${diveFileName(dive, 'raw')}-${dive.id.slice(0, 8)}.${query.format}`;
-          used.add(name);
-          zip.addBuffer(Buffer.from(file.text), name, { mtime: dive.startTime ?? new Date(0) });
+        try {
+          for (const dive of dives) {
+            const file = await downloadDiveTrack(deps, {
+              organisationId: me.organisationId,
+              projectId: params.projectId,
+              diveId: dive.id,
+              format: query.format,
+              variant: 'raw',
+            });
+            let name = file.fileName;
+            if (used.has(name)) name = `${diveFileName(dive, 'raw')}-${dive.id.slice(0, 8)}.${query.format}`;
+            used.add(name);
+            zip.addBuffer(Buffer.from(file.text), name, { mtime: dive.startTime ?? new Date(0) });
+          }
+        } catch (error) {
+          res.destroy(error instanceof Error ? error : new Error(String(error)));
+          return;
         }
         zip.end();
         await new Promise<void>((resolve, reject) => {
