@@ -201,15 +201,16 @@ const RESULT_COLUMNS = [
   'created_at',
 ];
 
+// Default null order (last ascending, first descending) so the (project_id, column, id) indexes serve either direction.
 const SORT_SQL: Record<DiveSort, string> = {
-  startTime: 'd.start_time asc nulls last, d.id asc',
-  '-startTime': 'd.start_time desc nulls last, d.id desc',
-  maxDepth: 'd.max_depth_m asc nulls last, d.id asc',
-  '-maxDepth': 'd.max_depth_m desc nulls last, d.id desc',
-  duration: 'd.duration_s asc nulls last, d.id asc',
-  '-duration': 'd.duration_s desc nulls last, d.id desc',
-  distance: 'd.distance_m asc nulls last, d.id asc',
-  '-distance': 'd.distance_m desc nulls last, d.id desc',
+  startTime: 'd.start_time asc, d.id asc',
+  '-startTime': 'd.start_time desc, d.id desc',
+  maxDepth: 'd.max_depth_m asc, d.id asc',
+  '-maxDepth': 'd.max_depth_m desc, d.id desc',
+  duration: 'd.duration_s asc, d.id asc',
+  '-duration': 'd.duration_s desc, d.id desc',
+  distance: 'd.distance_m asc, d.id asc',
+  '-distance': 'd.distance_m desc, d.id desc',
 };
 
 function toDive(row: DiveRow): DiveRecord {
