@@ -1,4 +1,5 @@
 import proj4 from 'proj4';
+import { createHelmertShift, type HelmertShift } from '../geodesy/helmert-shift.js';
 import { createMercator } from '../geodesy/mercator.js';
 import { createTransverseMercator } from '../geodesy/transverse-mercator.js';
 import type { ResolvedCrs } from './resolve-crs.js';
@@ -14,7 +15,12 @@ export interface ReprojectedColumns {
 }
 
 /** Which code converts: Leadline's own fast paths, or proj4. */
-export type ReprojectionEngine = 'transverse-mercator-series' | 'mercator' | 'proj4';
+export type ReprojectionEngine =
+  | 'transverse-mercator-series'
+  | 'mercator'
+  | 'helmert+transverse-mercator-series'
+  | 'helmert+mercator'
+  | 'proj4';
 
 /** A CRS ↔ WGS 84 converter working on columns. */
 export interface Reprojection {
@@ -40,7 +46,7 @@ interface ParsedProj {
   y0?: number;
   to_meter?: number;
   axis?: string;
-  datum?: { datum_type?: number };
+  datum?: { datum_type?: number; datum_params?: number[] };
   utmSouth?: boolean;
   zone?: number;
 }
@@ -56,6 +62,8 @@ interface ColumnProjection {
   inverse(x: Float64Array, y: Float64Array, lonDeg: Float64Array, latDeg: Float64Array): void;
 }
 
+const DATUM_3PARAM = 1;
+const DATUM_7PARAM = 2;
 const DATUM_NONE = 5;
 
 // Transverse Mercator and Mercator in metres, with no datum shift between WGS 84 and the CRS as
@@ -67,7 +75,8 @@ function tryFastPath(def: string): { engine: ReprojectionEngine; projection: Col
   if (/\+approx\b/.test(def) || /\+(nadgrids|geoidgrids|pm|axis)=/.test(def.replace('+nadgrids=@null', '')))
     return undefined;
   const datumType = parsed.datum?.datum_type;
-  if (datumType !== DATUM_WGS84 && datumType !== DATUM_NONE) return undefined;
+  const shifted = datumType === DATUM_3PARAM || datumType === DATUM_7PARAM;
+  if (datumType !== DATUM_WGS84 && datumType !== DATUM_NONE && !shifted) return undefined;
   if (parsed.to_meter !== undefined && parsed.to_meter !== 1) return undefined;
   if (parsed.axis !== undefined && parsed.axis !== 'enu') return undefined;
   const { a, b } = parsed;
@@ -84,7 +93,7 @@ function tryFastPath(def: string): { engine: ReprojectionEngine; projection: Col
       falseEastingM: parsed.x0 ?? 0,
       falseNorthingM: parsed.y0 ?? 0,
     });
-    return { engine: 'transverse-mercator-series', projection };
+    return withShift('transverse-mercator-series', projection, parsed, shifted);
   }
   if (name === 'merc' && (parsed.lat0 ?? 0) === 0) {
     const projection = createMercator({
@@ -96,9 +105,48 @@ function tryFastPath(def: string): { engine: ReprojectionEngine; projection: Col
       falseEastingM: parsed.x0 ?? 0,
       falseNorthingM: parsed.y0 ?? 0,
     });
-    return { engine: 'mercator', projection };
+    return withShift('mercator', projection, parsed, shifted);
   }
   return undefined;
+}
+
+// Puts a Helmert datum shift (3 or 7 parameters, as proj4 parsed them) in front of a fast projection.
+function withShift(
+  engine: 'transverse-mercator-series' | 'mercator',
+  projection: ColumnProjection,
+  parsed: ParsedProj,
+  shifted: boolean,
+): { engine: ReprojectionEngine; projection: ColumnProjection } | undefined {
+  if (!shifted) return { engine, projection };
+  const p = parsed.datum?.datum_params ?? [];
+  if (parsed.a === undefined || parsed.es === undefined || (p.length !== 3 && p.length !== 7)) return undefined;
+  const [dx = 0, dy = 0, dz = 0, rx = 0, ry = 0, rz = 0, scale = 1] = p;
+  const shift: HelmertShift = createHelmertShift({ dx, dy, dz, rx, ry, rz, scale }, parsed.a, parsed.es);
+  const point = new Float64Array(3);
+  return {
+    engine: `helmert+${engine}`,
+    projection: {
+      forward(lonDeg, latDeg, x, y) {
+        const n = Math.min(lonDeg.length, latDeg.length);
+        const lon = new Float64Array(n);
+        const lat = new Float64Array(n);
+        for (let i = 0; i < n; i++) {
+          shift.toDatum(latDeg[i] as number, lonDeg[i] as number, point);
+          lat[i] = point[0] as number;
+          lon[i] = point[1] as number;
+        }
+        projection.forward(lon, lat, x, y);
+      },
+      inverse(x, y, lonDeg, latDeg) {
+        projection.inverse(x, y, lonDeg, latDeg);
+        for (let i = 0; i < lonDeg.length; i++) {
+          shift.toWgs84(latDeg[i] as number, lonDeg[i] as number, point);
+          latDeg[i] = point[0] as number;
+          lonDeg[i] = point[1] as number;
+        }
+      },
+    },
+  };
 }
 
 function collectFailures(inA: Float64Array, inB: Float64Array, outA: Float64Array, outB: Float64Array): number[] {
@@ -115,7 +163,8 @@ function collectFailures(inA: Float64Array, inB: Float64Array, outA: Float64Arra
 
 /**
  * Builds a columnar converter between WGS 84 and a resolved CRS. Transverse Mercator, UTM and
- * Mercator (including Pseudo-Mercator) without a datum shift use Leadline's own code (Krüger series,
+ * Mercator (including Pseudo-Mercator), with no datum shift or a 3/7-parameter Helmert one, use
+ * Leadline's own code (Krüger series,
  * sub-millimetre, several million points per second); everything else goes through proj4 with the
  * definition `resolveCrs` chose, its inverse polished by one Newton step on the forward where
  * proj4's inverse is a coarser series. A value

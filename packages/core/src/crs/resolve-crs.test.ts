@@ -37,6 +37,7 @@ describe('resolveCrs', () => {
     expect(crs.accuracyM).toBe(5);
     expect(crs.note).toMatch(/OSTN15.*Helmert.*5 m/);
     expect(crs.proj4).not.toMatch(/nadgrids/);
+    expect(createReprojection(crs).engine).toBe('helmert+transverse-mercator-series');
     const r = createReprojection(crs).forward(Float64Array.of(0.5), Float64Array.of(50.5));
     expect(Number.isFinite(r.x[0] as number) && Number.isFinite(r.y[0] as number)).toBe(true);
   });
