@@ -86,6 +86,8 @@ export async function runArchiveBench(): Promise<string> {
     });
     const endToEnd: number[] = [];
     const workMs: number[] = [];
+    const uploadMs: number[] = [];
+    const waitMs: number[] = [];
     let diveId = '';
     let fixCount = 0;
     for (const log of logs) {
@@ -96,9 +98,10 @@ export async function runArchiveBench(): Promise<string> {
         results: Array<{ log: { id: string } }>;
       };
       const logId = uploaded.results[0]?.log.id ?? '';
+      uploadMs.push(performance.now() - t0);
       for (;;) {
         const runs = (await (await fetch(`${base}/logs/${logId}/runs`, { headers })).json()) as {
-          runs: Array<{ status: string; startedAt: string; finishedAt: string }>;
+          runs: Array<{ status: string; createdAt: string; startedAt: string; finishedAt: string }>;
         };
         const run = runs.runs[0];
         if (run?.status === 'failed') throw new Error('processing failed');
@@ -108,6 +111,7 @@ export async function runArchiveBench(): Promise<string> {
           };
           endToEnd.push(performance.now() - t0);
           workMs.push(Date.parse(run.finishedAt) - Date.parse(run.startedAt));
+          waitMs.push(Date.parse(run.startedAt) - Date.parse(run.createdAt));
           diveId = list.dives[0]?.id ?? '';
           fixCount = list.dives[0]?.fixCount ?? 0;
           break;
@@ -125,8 +129,16 @@ export async function runArchiveBench(): Promise<string> {
       readMs.push(performance.now() - t0);
     }
 
-    // GET of its GeoJSON track: 10 clients on loopback for 5 s.
+    // GET of its GeoJSON track: one client, one request at a time, after a first request fills the cache.
     const trackUrl = `${base}/dives/${diveId}/track?format=geojson`;
+    const sequential: number[] = [];
+    for (let i = 0; i < 41; i++) {
+      const t0 = performance.now();
+      await (await fetch(trackUrl, { headers })).arrayBuffer();
+      if (i > 0) sequential.push(performance.now() - t0);
+    }
+
+    // GET of its GeoJSON track: 10 clients on loopback for 5 s.
     const latencies: number[] = [];
     let bytes = 0;
     const endAt = performance.now() + 5000;
@@ -146,8 +158,11 @@ export async function runArchiveBench(): Promise<string> {
     const f = (x: number) => x.toFixed(0);
     return [
       `${uploads} uploads of a ${fixCount}-fix dive, upload → processed → listed: p50 ${f(percentile(endToEnd, 0.5))} ms, p95 ${f(percentile(endToEnd, 0.95))} ms`,
+      `the upload request alone (archive, then queue): p50 ${f(percentile(uploadMs, 0.5))} ms`,
+      `queued → taken by the worker: p50 ${f(percentile(waitMs, 0.5))} ms`,
       `processing run alone (read, split, audit, summarise, store): p50 ${f(percentile(workMs, 0.5))} ms, p95 ${f(percentile(workMs, 0.95))} ms`,
       `stored fixes read back: p50 ${percentile(readMs, 0.5).toFixed(1)} ms`,
+      `GET GeoJSON track one at a time: p50 ${f(percentile(sequential, 0.5))} ms`,
       `GET GeoJSON track (${(bytes / 1024).toFixed(0)} KiB), 10 clients 5 s: ${f(latencies.length / 5)} req/s, p50 ${f(percentile(latencies, 0.5))} ms, p99 ${f(percentile(latencies, 0.99))} ms`,
     ].join('; ');
   } finally {
