@@ -1,5 +1,5 @@
 import { type ChildProcess, spawn } from 'node:child_process';
-import { createHash } from 'node:crypto';
+import { createHash, randomUUID } from 'node:crypto';
 import { fileURLToPath } from 'node:url';
 import { planSeason, simulatePlannedDive } from '@leadline/core';
 import pino from 'pino';
@@ -199,6 +199,33 @@ describe('startProcessingWorker', () => {
       return run?.status === 'done' ? run : undefined;
     });
     expect(done).toMatchObject({ kind: 'process', attempts: 1 });
+  }, 30_000);
+
+  it('marks failed a run whose worker died on its last attempt, so it never stays processing', async () => {
+    for (const p of started.splice(1)) await p.stop();
+    const log = simulatedCsv(24);
+    const uploaded = await editor
+      .post(`${base}/logs`)
+      .set(...SAME)
+      .attach('files', Buffer.from(log.text), log.name)
+      .expect(201);
+    const logId: string = uploaded.body.results[0].log.id;
+    // As pg-boss leaves it after the last expiry: the run still "processing", its job gone.
+    await database
+      .db('processing_runs')
+      .where({ log_id: logId })
+      .update({ status: 'processing', attempts: 3, started_at: new Date(Date.now() - 3600_000), job_id: randomUUID() });
+    started.push(
+      await startProcessing({
+        databaseUrl: database.url,
+        db: database.db,
+        logger: pino({ level: 'silent' }),
+        settings: { expireInS: 60 },
+      }),
+    );
+    const [run] = await runsOf(editor, base, logId);
+    expect(run).toMatchObject({ status: 'failed' });
+    expect(run?.reason).toMatch(/stopped mid-job on every attempt \(3\)/);
   }, 30_000);
 
   it("mails the project's watchers when a dive fails its audit", async () => {

@@ -154,10 +154,32 @@ export async function startProcessingWorker(
     });
     await queue.enqueue(run, log.organisationId);
   }
+  // A run whose worker died on its last attempt is never handed to a handler again: pg-boss fails the
+  // job on expiry. Such runs are marked failed here (at start and every minute).
+  const settings = { ...DEFAULT_SETTINGS, ...options.settings };
+  const reap = async () => {
+    for (const run of await deps.runs.stalled(settings.expireInS)) {
+      if (run.jobId === null) continue;
+      const job = await boss.getJobById(PROCESSING_QUEUE, run.jobId, { includeArchive: true });
+      if (job === null || job.state === 'failed' || job.state === 'cancelled')
+        await deps.runs.fail(
+          run.id,
+          `the worker stopped mid-job on every attempt (${run.attempts}); reprocess the log`,
+        );
+    }
+  };
+  await reap();
+  const reaper = setInterval(() => {
+    reap().catch((error: unknown) => log?.warn({ err: error }, 'checking stalled runs failed'));
+  }, 60_000);
+  reaper.unref();
   return {
     wake: () => {
       if (workerId !== undefined) boss.notifyWorker(workerId);
     },
-    stop: () => boss.offWork(PROCESSING_QUEUE),
+    stop: async () => {
+      clearInterval(reaper);
+      await boss.offWork(PROCESSING_QUEUE);
+    },
   };
 }

@@ -305,11 +305,17 @@ describe('createDiveRoutes', () => {
     expect(createHash('sha256').update(original.body).digest('hex')).toBe(
       createHash('sha256').update(log.text).digest('hex'),
     );
-    await editor
+    // Reprocessing the failed log with a known profile reads and splits it again.
+    const again = await editor
       .post(`${otherBase}/logs/${otherLogId}/reprocess`)
       .set(...SAME)
       .send({ auditProfile: 'work-rov' })
-      .expect(409);
+      .expect(202);
+    expect(again.body.run).toMatchObject({ kind: 'process', auditProfile: 'work-rov' });
+    const runs = await waitForRuns(viewer, otherBase, otherLogId, 2);
+    expect(runs.map((r) => r.status)).toEqual(['done', 'failed']);
+    const dives = await viewer.get(`${otherBase}/dives?logId=${otherLogId}`).expect(200);
+    expect(dives.body.total).toBeGreaterThanOrEqual(1);
   });
 
   it('streams the selected dives as one zip of track files', async () => {

@@ -373,14 +373,15 @@ export function createDiveRoutes(deps: DiveDeps): RouteSpec[] {
     defineRoute({
       method: 'post',
       path: '/organisations/:organisationId/projects/:projectId/logs/:logId/reprocess',
-      summary: 'Reprocess every dive of a log with another audit profile or setup (re-solve); kept as a new run',
+      summary:
+        'Reprocess every dive of a log with another audit profile or setup (re-solve), or read and split a log whose processing failed again; kept as a new run',
       tag: 'Dives',
       access: 'editor',
       params: LogParams,
       body: ReprocessBody,
       responses: {
         202: { description: 'Queued', schema: z.object({ run: RunSchema }) },
-        409: { description: 'The log has not been split into dives yet' },
+        409: { description: "The log's last run is still queued or processing" },
         422: { description: 'Unknown profile or invalid setup' },
       },
       async handler({ params, body, auth }, _req, res) {

@@ -284,6 +284,8 @@ async function queueReprocess(
     diveId: string | null;
     actorUserId: string;
     request: ReprocessRequest;
+    /** `process` when the log has no dives yet (its first processing failed): read and split again. */
+    kind?: 'process' | 'reprocess';
   },
 ): Promise<RunRecord> {
   const auditProfile = input.request.auditProfile ?? input.project.auditProfile;
@@ -298,7 +300,7 @@ async function queueReprocess(
     projectId: input.project.id,
     logId: input.logId,
     diveId: input.diveId,
-    kind: 'reprocess',
+    kind: input.kind ?? 'reprocess',
     auditProfile,
     resolveSetup,
     auditSetup,
@@ -325,14 +327,22 @@ export async function reprocessDive(
   return queueReprocess(deps, { ...input, project, logId: dive.logId, diveId: dive.id });
 }
 
-/** Queues a reprocess of every dive of a log; 409 while the log has not been split into dives yet. */
+/**
+ * Queues a reprocess of every dive of a log; a log without dives (its processing failed) is read and
+ * split again. 409 while the log's processing is still queued or running.
+ */
 export async function reprocessLog(
   deps: DiveDeps,
   input: { organisationId: string; projectId: string; logId: string; actorUserId: string; request: ReprocessRequest },
 ): Promise<RunRecord> {
   const project = await projectOf(deps, input.organisationId, input.projectId);
   await logOf(deps, input.projectId, input.logId);
-  if ((await deps.dives.diveIdsOfLog(input.logId)).length === 0)
-    throw new AppError('conflict', 'The log has no dives yet: wait until its processing is done, then reprocess.');
-  return queueReprocess(deps, { ...input, project, diveId: null });
+  const [latest] = await deps.runs.listForLog(input.logId);
+  if (latest !== undefined && (latest.status === 'queued' || latest.status === 'processing'))
+    throw new AppError(
+      'conflict',
+      `The log's last run is still ${latest.status}: wait until it is done, then reprocess.`,
+    );
+  const hasDives = (await deps.dives.diveIdsOfLog(input.logId)).length > 0;
+  return queueReprocess(deps, { ...input, project, diveId: null, kind: hasDives ? 'reprocess' : 'process' });
 }

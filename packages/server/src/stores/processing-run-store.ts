@@ -50,6 +50,8 @@ export interface ProcessingRunStore {
   fail(runId: string, reason: string): Promise<void>;
   /** Runs still `queued` that never reached the job queue (the server stopped between the two). */
   queuedWithoutJob(): Promise<Array<{ run: RunRecord; organisationId: string }>>;
+  /** Runs marked `processing` longer than `olderThanS` seconds (their worker may have died). */
+  stalled(olderThanS: number): Promise<RunRecord[]>;
   /** Logs that never had a run (archived before processing existed, or loaded as demo data), oldest first. */
   logsWithoutRuns(
     limit: number,
@@ -164,6 +166,12 @@ export function createKnexProcessingRunStore(db: Knex): ProcessingRunStore {
         .where('r.created_at', '<', db.raw(`now() - interval '30 seconds'`))
         .select('r.*', 'p.organisation_id');
       return rows.map((row) => ({ run: toRunRecord(row), organisationId: row.organisation_id }));
+    },
+    async stalled(olderThanS) {
+      const rows: RunRow[] = await db('processing_runs')
+        .where({ status: 'processing' })
+        .where('started_at', '<', db.raw(`now() - make_interval(secs => ?)`, [olderThanS]));
+      return rows.map(toRunRecord);
     },
     async logsWithoutRuns(limit) {
       const rows: Array<{
