@@ -72,9 +72,10 @@ const ArchiveQuery = z.object({
   ids: z
     .string()
     .transform((text) => text.split(',').map((v) => v.trim()))
-    .pipe(z.array(UuidSchema).min(1).max(1000))
+    // 300 ids keep the URL within Node's 16 KiB header limit; larger selections go by filter.
+    .pipe(z.array(UuidSchema).min(1).max(300))
     .optional()
-    .describe('Comma-separated dive ids: the selection'),
+    .describe('Comma-separated dive ids (at most 300): the selection'),
   format: z.enum(TRACK_FORMATS).default('gpx'),
   limit: z.coerce.number().int().min(1).max(1000).default(1000),
 });
