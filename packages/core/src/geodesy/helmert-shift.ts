@@ -43,7 +43,7 @@ function toGeodetic(x: number, y: number, z: number, a: number, e2: number, out:
   const p = Math.hypot(x, y);
   let lat = Math.atan2(z, p * (1 - e2));
   let h = 0;
-  for (let i = 0; i < 4; i++) {
+  for (let i = 0; i < 3; i++) {
     const s = Math.sin(lat);
     const n = a / Math.sqrt(1 - e2 * s * s);
     h = Math.abs(lat) < 1.5 ? p / Math.cos(lat) - n : z / s - n * (1 - e2);
