@@ -26,6 +26,19 @@ const QUALITY_NAMES = /^(quality|fixquality)$/i;
 const SURFACE_LAT_NAMES = /^(surface|ship|vessel)_?lat(itude)?$/i;
 const SURFACE_LON_NAMES = /^(surface|ship|vessel)_?lon(gitude)?$/i;
 const SURFACE_HEADING_NAMES = /^(surface|ship|vessel)_?heading$/i;
+const OPTIONAL_KEYS = [
+  'ele',
+  'depth',
+  'heading',
+  'speed',
+  'range',
+  'bearing',
+  'quality',
+  'surfaceLat',
+  'surfaceLon',
+  'surfaceHeading',
+] as const;
+type OptionalKey = (typeof OPTIONAL_KEYS)[number];
 const SURFACE_TRACK = /surface|ship|vessel|boat|topside/i;
 const UNDERWATER_HINT = /\b(rov|auv|vehicle|diver|dive|transponder|beacon|underwater)\b/i;
 
@@ -205,6 +218,7 @@ export function* readGpxEvents(input: LogTextInput, options: ReadOptions = {}): 
       }
     }
   });
+  const optionalValues = new Float64Array(OPTIONAL_KEYS.length);
   const finishPoint = (p: PointState) => {
     const lat = parseCoordinate(p.lat, 'lat');
     if (!lat.ok)
@@ -230,19 +244,12 @@ export function* readGpxEvents(input: LogTextInput, options: ReadOptions = {}): 
     } else if (p.kind === 'trkpt') {
       return reject(p.line, 'missing-value', 'a <time> in every track point', 'no <time>');
     }
-    const numbers: Record<string, number> = {};
-    for (const [key, raw] of [
-      ['ele', p.ele],
-      ['depth', p.depth],
-      ['heading', p.heading],
-      ['speed', p.speed],
-      ['range', p.range],
-      ['bearing', p.bearing],
-      ['quality', p.quality],
-      ['surfaceLat', p.surfaceLat],
-      ['surfaceLon', p.surfaceLon],
-      ['surfaceHeading', p.surfaceHeading],
-    ] as const) {
+    // optional values into a reused array (no object per point on the hot path)
+    const values = optionalValues;
+    for (let k = 0; k < OPTIONAL_KEYS.length; k++) {
+      const key = OPTIONAL_KEYS[k] as OptionalKey;
+      const raw = p[key];
+      values[k] = Number.NaN;
       if (raw === undefined || raw === '') continue;
       const n = Number(raw);
       if (!Number.isFinite(n)) {
@@ -253,11 +260,23 @@ export function* readGpxEvents(input: LogTextInput, options: ReadOptions = {}): 
           `"${raw}"`,
         );
       }
-      numbers[key] = n;
+      values[k] = n;
     }
+    const numbers = {
+      ele: values[0] as number,
+      depth: values[1] as number,
+      heading: values[2] as number,
+      speed: values[3] as number,
+      range: values[4] as number,
+      bearing: values[5] as number,
+      quality: values[6] as number,
+      surfaceLat: values[7] as number,
+      surfaceLon: values[8] as number,
+      surfaceHeading: values[9] as number,
+    };
     let depthM = Number.NaN;
-    if (numbers.depth !== undefined) depthM = numbers.depth;
-    else if (numbers.ele !== undefined) depthM = -numbers.ele + 0;
+    if (!Number.isNaN(numbers.depth)) depthM = numbers.depth;
+    else if (!Number.isNaN(numbers.ele)) depthM = -numbers.ele + 0;
     if (p.kind === 'wpt') {
       const waypoint: Waypoint = {
         name: p.name ?? `waypoint ${++waypointCount}`,
@@ -272,22 +291,23 @@ export function* readGpxEvents(input: LogTextInput, options: ReadOptions = {}): 
       return;
     }
     if (track !== undefined) {
-      if (numbers.depth !== undefined) track.depthCount++;
-      else if (numbers.ele !== undefined) {
+      if (!Number.isNaN(numbers.depth)) track.depthCount++;
+      else if (!Number.isNaN(numbers.ele)) {
         track.eleCount++;
         if (numbers.ele > 0) track.elePositive++;
       }
     }
     const fix: Fix = { timeMs, latDeg: lat.deg, lonDeg: lon.deg };
     if (!Number.isNaN(depthM)) fix.depthM = depthM;
-    if (numbers.heading !== undefined) fix.headingDeg = normaliseAzimuthDeg(numbers.heading);
-    if (numbers.speed !== undefined) fix.speedMps = numbers.speed;
-    if (numbers.range !== undefined) fix.slantRangeM = numbers.range;
-    if (numbers.bearing !== undefined) fix.bearingDeg = normaliseAzimuthDeg(numbers.bearing);
-    if (numbers.quality !== undefined) fix.quality = numbers.quality;
-    if (numbers.surfaceLat !== undefined && Math.abs(numbers.surfaceLat) <= 90) fix.surfaceLatDeg = numbers.surfaceLat;
-    if (numbers.surfaceLon !== undefined && Math.abs(numbers.surfaceLon) <= 180) fix.surfaceLonDeg = numbers.surfaceLon;
-    if (numbers.surfaceHeading !== undefined) fix.surfaceHeadingDeg = normaliseAzimuthDeg(numbers.surfaceHeading);
+    if (!Number.isNaN(numbers.heading)) fix.headingDeg = normaliseAzimuthDeg(numbers.heading);
+    if (!Number.isNaN(numbers.speed)) fix.speedMps = numbers.speed;
+    if (!Number.isNaN(numbers.range)) fix.slantRangeM = numbers.range;
+    if (!Number.isNaN(numbers.bearing)) fix.bearingDeg = normaliseAzimuthDeg(numbers.bearing);
+    if (!Number.isNaN(numbers.quality)) fix.quality = numbers.quality;
+    if (!Number.isNaN(numbers.surfaceLat) && Math.abs(numbers.surfaceLat) <= 90) fix.surfaceLatDeg = numbers.surfaceLat;
+    if (!Number.isNaN(numbers.surfaceLon) && Math.abs(numbers.surfaceLon) <= 180)
+      fix.surfaceLonDeg = numbers.surfaceLon;
+    if (!Number.isNaN(numbers.surfaceHeading)) fix.surfaceHeadingDeg = normaliseAzimuthDeg(numbers.surfaceHeading);
     queue.push({ kind: 'fix', fix, line: p.line });
   };
   for (const chunk of input.chunks) {
