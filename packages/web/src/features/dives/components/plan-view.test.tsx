@@ -63,4 +63,19 @@ describe('PlanView', () => {
     expect(scaleOf(canvas)).toBeGreaterThan(0);
     expect(screen.getByTestId('scale-bar').textContent).not.toBe(before);
   });
+
+  it('zooms in when two pointers pinch outwards and pans (without zooming) with one', () => {
+    const canvas = renderPlan();
+    const fitted = scaleOf(canvas);
+    fireEvent.pointerDown(canvas, { pointerId: 1, clientX: 100, clientY: 100 });
+    fireEvent.pointerMove(canvas, { pointerId: 1, clientX: 140, clientY: 120 });
+    expect(scaleOf(canvas)).toBeCloseTo(fitted, 9);
+    fireEvent.pointerDown(canvas, { pointerId: 2, clientX: 240, clientY: 120 });
+    // The second finger moves away: the distance between them goes from 100 px to 200 px.
+    fireEvent.pointerMove(canvas, { pointerId: 2, clientX: 290, clientY: 120 });
+    fireEvent.pointerMove(canvas, { pointerId: 2, clientX: 340, clientY: 120 });
+    expect(scaleOf(canvas)).toBeCloseTo(fitted / 2, 6);
+    fireEvent.pointerUp(canvas, { pointerId: 1 });
+    fireEvent.pointerUp(canvas, { pointerId: 2 });
+  });
 });
