@@ -8,6 +8,11 @@ export interface CliIo {
 
 /** The process's own streams. */
 export function createProcessIo(): CliIo {
+  // `leadline … | head` closes the pipe early: that is the reader's choice, not an error.
+  process.stdout.on('error', (error: NodeJS.ErrnoException) => {
+    if (error.code === 'EPIPE') process.exit(0);
+    throw error;
+  });
   return {
     stdout: (text) => process.stdout.write(text),
     stderr: (text) => process.stderr.write(text),
