@@ -318,6 +318,31 @@ describe('createDiveRoutes', () => {
     expect(dives.body.total).toBeGreaterThanOrEqual(1);
   });
 
+  it('sorts and pages over several dives', async () => {
+    const second = simulatedLog(12);
+    const uploaded = await editor
+      .post(`${base}/logs`)
+      .set(...SAME)
+      .attach('files', Buffer.from(second.text), second.name)
+      .expect(201);
+    await waitForRuns(viewer, base, uploaded.body.results[0].log.id);
+    const all = (await viewer.get(`${base}/dives?sort=maxDepth`).expect(200)).body;
+    expect(all.total).toBeGreaterThanOrEqual(2);
+    const depths = all.dives.map((d: { maxDepthM: number }) => d.maxDepthM);
+    expect(depths).toEqual([...depths].sort((a, b) => a - b));
+    const descending = (await viewer.get(`${base}/dives?sort=-maxDepth`).expect(200)).body.dives;
+    expect(descending.map((d: { id: string }) => d.id)).toEqual(all.dives.map((d: { id: string }) => d.id).reverse());
+    const starts = (await viewer.get(`${base}/dives?sort=startTime`).expect(200)).body.dives.map(
+      (d: { startTime: string }) => Date.parse(d.startTime),
+    );
+    expect(starts).toEqual([...starts].sort((a, b) => a - b));
+    const first = (await viewer.get(`${base}/dives?sort=startTime&limit=1`).expect(200)).body;
+    const next = (await viewer.get(`${base}/dives?sort=startTime&limit=1&offset=1`).expect(200)).body;
+    expect(first.total).toBe(all.total);
+    expect(next.dives[0].id).not.toBe(first.dives[0].id);
+    expect(Date.parse(next.dives[0].startTime)).toBeGreaterThanOrEqual(Date.parse(first.dives[0].startTime));
+  });
+
   it('streams the selected dives as one zip of track files', async () => {
     const response = await viewer
       .get(`${base}/dive-archive?format=geojson&ids=${diveId}`)
