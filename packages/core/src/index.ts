@@ -87,7 +87,7 @@ export {
   toMetresPerSecond,
 } from './model/units.js';
 export type { DecodedLogText } from './read/decode-log-text.js';
-export { decodeLogText } from './read/decode-log-text.js';
+export { decodeLogChunks, decodeLogText } from './read/decode-log-text.js';
 export type { ColumnKey, ColumnReportEntry, LogInput, LogReadResult, ReadOptions } from './read/log-read-result.js';
 export type { CsvColumnMap, MappedColumn, TimeForm } from './read/map-csv-columns.js';
 export { guessColumnFromName, mapCsvColumns } from './read/map-csv-columns.js';
