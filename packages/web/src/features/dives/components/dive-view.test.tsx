@@ -79,4 +79,21 @@ describe('DiveView', () => {
     expect(screen.getByRole('alert').textContent).toMatch(/EPSG:1 could not be used/);
     expect(screen.getByText(/Grid: Local metres/)).toBeTruthy();
   });
+
+  it('says so instead of drawing when no fix has a position', () => {
+    const empty = {
+      ...dive,
+      vehicle: {
+        timeMs: [0, 1000],
+        latDeg: [Number.NaN, Number.NaN],
+        lonDeg: [Number.NaN, Number.NaN],
+        depthM: [1, 2],
+      },
+      surface: { timeMs: [], latDeg: [], lonDeg: [] },
+      findings: [],
+    };
+    render(<DiveView data={empty} />);
+    expect(screen.getByRole('heading', { name: 'No positioned fixes' })).toBeTruthy();
+    expect(screen.getByText(/This dive has 2 fixes and none of them has a position/)).toBeTruthy();
+  });
 });

@@ -1,4 +1,5 @@
 import { type ReactNode, useId, useMemo, useState } from 'react';
+import { EmptyState } from '../../../components/ui/query-states';
 import { SafetyCaution } from '../../../components/ui/safety-caution';
 import { formatClockUtc, formatCount, formatQuantity } from '../lib/format';
 import { createLocalGrid, createProjectedGrid, type GridSystem, utmChoiceFor } from '../lib/grid-system';
@@ -87,7 +88,12 @@ export function DiveView({ data, banner }: DiveViewProps) {
         </p>
       </header>
       <SafetyCaution />
-      <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem]">
+      {plot.bounds === undefined ? (
+        <EmptyState title="No positioned fixes">
+          This dive has {formatCount(plot.n)} fixes and none of them has a position, so there is no track to draw.
+        </EmptyState>
+      ) : null}
+      <div className={plot.bounds === undefined ? 'hidden' : 'grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem]'}>
         <div className="flex min-w-0 flex-col gap-4">
           <div className="flex flex-wrap items-end gap-x-6 gap-y-3">
             <fieldset className="flex items-center gap-3 text-sm">
