@@ -36,7 +36,7 @@ describe('dive page (preview) in headless Chromium', () => {
 
   beforeAll(async () => {
     database = await createTestDatabase();
-    web = await startWebServer(database.db);
+    web = await startWebServer(database);
     browser = await launchBrowser();
   });
   afterAll(async () => {

@@ -10,7 +10,7 @@ describe('landing page in headless Chromium', () => {
 
   beforeAll(async () => {
     database = await createTestDatabase();
-    web = await startWebServer(database.db);
+    web = await startWebServer(database);
     browser = await launchBrowser();
   });
   afterAll(async () => {

@@ -14,7 +14,7 @@ describe('sign-in, the signed-in layout and the 404 page in headless Chromium', 
     database = await createTestDatabase();
     // The invented demo organisation and people, with the shortest season the loader takes.
     await loadDemoData(database.db, { seed: 3, dives: 1, diveMinutes: 5 });
-    web = await startWebServer(database.db);
+    web = await startWebServer(database);
     browser = await launchBrowser();
   });
   afterAll(async () => {

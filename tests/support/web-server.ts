@@ -10,12 +10,15 @@ import pino from 'pino';
 export const WEB_DIST = fileURLToPath(new URL('../../packages/web/dist', import.meta.url));
 
 /** Serves the API and the built site on a free loopback port. */
-export async function startWebServer(db: Knex): Promise<{ baseUrl: string; close: () => Promise<void> }> {
+export async function startWebServer(database: {
+  db: Knex;
+  url: string;
+}): Promise<{ baseUrl: string; close: () => Promise<void> }> {
+  const { db, url } = database;
   if (!existsSync(`${WEB_DIST}/index.html`))
     throw new Error(`no built web site in ${WEB_DIST}: npm test builds it first`);
   // Sessions in the same database as `db`; mail to a fake SMTP server of its own.
-  const connection = (db.client as { config: { connection: unknown } }).config.connection;
-  const sessions = createPgSessionStore(String(connection), { pruneIntervalS: false });
+  const sessions = createPgSessionStore(url, { pruneIntervalS: false });
   const mailbox = await startFakeSmtpServer();
   const mailer = createSmtpMailer(mailbox.url, 'Leadline test <leadline@test.invalid>');
   const app = createApp({
