@@ -15,7 +15,7 @@ const southPlan = plans.find((p) => p.spec.site.id === 'greywhistle');
 if (northPlan === undefined || southPlan === undefined) throw new Error('the season lacks a site');
 const north = simulateDive(northPlan.spec);
 const south = simulateDive(southPlan.spec);
-const GPX_XSD = fileURLToPath(new URL('../../../../../shared/standards/gpx-1.1.xsd', import.meta.url));
+const GPX_XSD = fileURLToPath(new URL('../read/schemas/gpx-1.1.xsd', import.meta.url));
 
 function rows(text: string, separator = ','): string[][] {
   return text
@@ -112,7 +112,7 @@ describe('writeDiveLogs', () => {
     try {
       const file = join(dir, 'dive.gpx');
       writeFileSync(file, gpx?.text ?? '');
-      // Reference: libxml2's xmllint against the GPX 1.1 schema (topografix.com, copy in shared/standards).
+      // Reference: libxml2's xmllint against the GPX 1.1 schema (topografix.com; the project's vendored copy).
       const result = execFileSync('xmllint', ['--noout', '--schema', GPX_XSD, file], {
         encoding: 'utf8',
         stdio: 'pipe',
