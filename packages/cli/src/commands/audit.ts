@@ -35,6 +35,7 @@ import {
   type WrittenOutput,
 } from '../support/index.js';
 import { createTaskPool } from '../support/task-pool.js';
+import { UsageProblem } from '../support/usage-problem.js';
 import { type AuditTaskPayload, type AuditTaskResult, REPORT_FORMATS, type ReportFormat } from './audit-task.js';
 import type { RegisterCommand } from './index.js';
 
@@ -133,8 +134,6 @@ export const registerAudit: RegisterCommand = (program, context) => {
     context.exitCode = await runAudit(inputs, options, context.io);
   });
 };
-
-class UsageProblem extends Error {}
 
 async function loadAuditSetup(text: string, cwd: string): Promise<AuditSetup> {
   let raw: unknown;

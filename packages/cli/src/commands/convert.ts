@@ -3,7 +3,6 @@ import { basename, resolve as resolvePath } from 'node:path';
 import {
   type AuditProfile,
   InvalidArgumentError as CoreInvalidArgumentError,
-  parseResolveSetup,
   parseUserProfiles,
   type ReadOptions,
   resolveAuditProfile,
@@ -26,7 +25,9 @@ import {
   startProgress,
   type WrittenOutput,
 } from '../support/index.js';
+import { loadResolveSetup } from '../support/load-resolve-setup.js';
 import { createTaskPool } from '../support/task-pool.js';
+import { UsageProblem } from '../support/usage-problem.js';
 import {
   CONVERT_FORMATS,
   type ConvertCrsReport,
@@ -123,8 +124,6 @@ export const registerConvert: RegisterCommand = (program, context) => {
   });
 };
 
-class UsageProblem extends Error {}
-
 /** Parses a positive number of seconds; commander reports a bad one as a usage error. */
 function parsePositiveNumber(text: string): number {
   const value = Number(text);
@@ -168,7 +167,7 @@ export async function runConvert(
       resolveAuditProfile(name, userProfiles);
       cleanProfile = { name, userProfiles };
     } else if (options.profile !== undefined) throw new UsageProblem('--profile applies with --clean only');
-    if (options.setup !== undefined) setup = await loadSetup(options.setup, config.setups ?? {}, cwd);
+    if (options.setup !== undefined) setup = await loadResolveSetup(options.setup, config.setups ?? {}, cwd);
   } catch (error) {
     if (
       error instanceof UsageProblem ||
@@ -305,41 +304,6 @@ export async function runConvert(
   } else if (options.json) printJson(io, reports);
   else if (!options.quiet) io.stdout(formatTable(reports));
   return exitCode;
-}
-
-/** Reads a setup from inline JSON, a config setup name, or a file, and validates it. */
-async function loadSetup(text: string, named: Record<string, unknown>, cwd: string): Promise<unknown> {
-  let raw: unknown;
-  let where: string;
-  if (text.trimStart().startsWith('{')) {
-    where = 'the --setup JSON';
-    raw = parseJson(text, where);
-  } else if (Object.hasOwn(named, text)) {
-    where = `setup "${text}" in the config file`;
-    raw = named[text];
-  } else {
-    where = resolvePath(cwd, text);
-    let fileText: string;
-    try {
-      fileText = await readFile(where, 'utf8');
-    } catch {
-      throw new UsageProblem(`--setup ${text}: no such file and no setup by that name in the config file`);
-    }
-    raw = parseJson(fileText, where);
-  }
-  try {
-    return parseResolveSetup(raw);
-  } catch (error) {
-    throw new UsageProblem(`${where}: ${(error as Error).message}`);
-  }
-}
-
-function parseJson(text: string, where: string): unknown {
-  try {
-    return JSON.parse(text);
-  } catch (error) {
-    throw new UsageProblem(`${where}: not valid JSON (${(error as Error).message})`);
-  }
 }
 
 function formatTable(reports: readonly ConvertFileReport[]): string {

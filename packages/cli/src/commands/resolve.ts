@@ -1,9 +1,7 @@
-import { readFile } from 'node:fs/promises';
 import { resolve as resolvePath } from 'node:path';
 import {
   type AuditProfile,
   InvalidArgumentError as CoreInvalidArgumentError,
-  parseResolveSetup,
   parseUserProfiles,
   type ReadOptions,
   type ResolveReport,
@@ -28,7 +26,9 @@ import {
   startProgress,
   type WrittenOutput,
 } from '../support/index.js';
+import { loadResolveSetup } from '../support/load-resolve-setup.js';
 import { createTaskPool } from '../support/task-pool.js';
+import { UsageProblem } from '../support/usage-problem.js';
 import type { RegisterCommand } from './index.js';
 import {
   RESOLVE_FORMATS,
@@ -125,7 +125,7 @@ export async function runResolve(
     const setupText = options.setup ?? config.defaults?.setup;
     if (setupText === undefined)
       throw new UsageProblem('resolve needs --setup <file|name|JSON> (or defaults.setup in the config file)');
-    setup = await loadSetup(setupText, config.setups ?? {}, cwd);
+    setup = await loadResolveSetup(setupText, config.setups ?? {}, cwd);
     auditProfile = resolveAuditProfile(
       options.profile ?? config.defaults?.profile ?? 'inspection-rov',
       parseUserProfiles(config.profiles ?? {}),
@@ -225,47 +225,6 @@ export async function runResolve(
   if (options.json) printJson(io, reports);
   else if (!options.quiet) io.stdout(formatTable(reports));
   return exitCode;
-}
-
-class UsageProblem extends Error {}
-
-/** Reads a setup from inline JSON, a config setup name, or a file, and validates it. */
-async function loadSetup(text: string, named: Record<string, unknown>, cwd: string): Promise<ResolveSetup> {
-  let raw: unknown;
-  let where: string;
-  if (text.trimStart().startsWith('{')) {
-    where = 'the --setup JSON';
-    raw = parseJson(text, where);
-  } else if (Object.hasOwn(named, text)) {
-    where = `setup "${text}" in the config file`;
-    raw = named[text];
-  } else {
-    const path = resolvePath(cwd, text);
-    where = path;
-    let fileText: string;
-    try {
-      fileText = await readFile(path, 'utf8');
-    } catch {
-      const names = Object.keys(named);
-      throw new UsageProblem(
-        `--setup ${text}: no such file${names.length > 0 ? ` and no setup by that name (config setups: ${names.join(', ')})` : ''}`,
-      );
-    }
-    raw = parseJson(fileText, where);
-  }
-  try {
-    return parseResolveSetup(raw);
-  } catch (error) {
-    throw new UsageProblem(`${where}: ${(error as Error).message}`);
-  }
-}
-
-function parseJson(text: string, where: string): unknown {
-  try {
-    return JSON.parse(text);
-  } catch (error) {
-    throw new UsageProblem(`${where}: not valid JSON (${(error as Error).message})`);
-  }
 }
 
 function formatTable(reports: readonly ResolveFileReport[]): string {
