@@ -20,6 +20,7 @@ import {
 import { InvalidArgumentError, Option } from 'commander';
 import { EXIT_FINDINGS, EXIT_IO, EXIT_OK, EXIT_USAGE } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
+import { buildReadOptions } from '../support/build-read-options.js';
 import {
   addCommonOptions,
   type CommonOptions,
@@ -172,8 +173,10 @@ export async function runAudit(
 ): Promise<number> {
   let profile: AuditProfile;
   let setup: AuditSetup = {};
+  let readOptions: ReadOptions;
   try {
     const { config } = await loadConfig(options.config, cwd);
+    readOptions = buildReadOptions(options, config);
     const userProfiles = parseUserProfiles(config.profiles ?? {});
     profile = resolveAuditProfile(options.profile ?? config.defaults?.profile ?? 'inspection-rov', userProfiles);
     if (options.setup !== undefined) setup = await loadAuditSetup(options.setup, cwd);
@@ -199,12 +202,6 @@ export async function runAudit(
       ? undefined
       : new OutputFolder(resolvePath(cwd, options.out), { force: options.force, inputs });
   const formats: ReportFormat[] = out === undefined ? [] : [options.report ?? 'json'];
-  const readOptions: ReadOptions = {
-    ...(options.as === undefined ? {} : { format: options.as as ReadOptions['format'] }),
-    ...(options.columns === undefined ? {} : { columns: options.columns as ReadOptions['columns'] }),
-    ...(options.tz === undefined ? {} : { timeZone: options.tz }),
-    ...(options.inputCrs === undefined ? {} : { inputCrs: options.inputCrs }),
-  };
   const split = options.split
     ? {
         splitGapS: options.gap ?? profile.splitGapS,

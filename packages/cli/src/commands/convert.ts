@@ -11,6 +11,7 @@ import {
 import { InvalidArgumentError as CommanderInvalidArgumentError, Option } from 'commander';
 import { EXIT_IO, EXIT_OK, EXIT_USAGE } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
+import { buildReadOptions } from '../support/build-read-options.js';
 import {
   addCommonOptions,
   type CommonOptions,
@@ -147,8 +148,10 @@ export async function runConvert(
   let cleanProfile: ConvertTaskPayload['cleanProfile'];
   let crs = options.crs;
   const grids: Record<string, Uint8Array> = {};
+  let readOptions: ReadOptions;
   try {
     const { config } = await loadConfig(options.config, cwd);
+    readOptions = buildReadOptions(options, config);
     crs ??= options.to === 'csv' ? config.defaults?.crs : undefined;
     if (crs !== undefined && options.to !== 'csv')
       throw new UsageProblem('--crs applies to --to csv only (GPX, GeoJSON and KML are always WGS 84)');
@@ -199,12 +202,6 @@ export async function runConvert(
       ? undefined
       : new OutputFolder(resolvePath(cwd, options.out), { force: options.force, inputs });
   const progress = startProgress(io, inputs.length, options);
-  const readOptions: ReadOptions = {
-    ...(options.as === undefined ? {} : { format: options.as as ReadOptions['format'] }),
-    ...(options.columns === undefined ? {} : { columns: options.columns as ReadOptions['columns'] }),
-    ...(options.tz === undefined ? {} : { timeZone: options.tz }),
-    ...(options.inputCrs === undefined ? {} : { inputCrs: options.inputCrs }),
-  };
   const nowMs = Date.now();
   const pool = createTaskPool(Math.min(options.jobs, Math.max(1, inputs.length)));
   let stdoutText: string | undefined;

@@ -1,11 +1,7 @@
-import {
-  InvalidArgumentError as CoreInvalidArgumentError,
-  LogTimeParser,
-  type ReadOptions,
-  resolveCrs,
-} from '@leadline/core';
+import { InvalidArgumentError as CoreInvalidArgumentError, type ReadOptions } from '@leadline/core';
 import { EXIT_IO, EXIT_OK, EXIT_USAGE } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
+import { buildReadOptions } from '../support/build-read-options.js';
 import {
   addCommonOptions,
   type CommonOptions,
@@ -19,6 +15,7 @@ import {
   startProgress,
 } from '../support/index.js';
 import { createTaskPool } from '../support/task-pool.js';
+import { UsageProblem } from '../support/usage-problem.js';
 import type { RegisterCommand } from './index.js';
 import type { InspectFileReport, InspectTaskPayload } from './inspect-task.js';
 
@@ -78,18 +75,13 @@ export async function runInspect(
   let readOptions: ReadOptions;
   try {
     const { config } = await loadConfig(options.config, cwd);
-    const timeZone = options.tz ?? config.defaults?.tz;
-    // checked before any file is read, so a typo is a usage error and not a failure per file
-    if (timeZone !== undefined) new LogTimeParser(timeZone);
-    if (options.inputCrs !== undefined) resolveCrs(options.inputCrs);
-    readOptions = {
-      ...(options.as === undefined ? {} : { format: options.as as ReadOptions['format'] }),
-      ...(options.columns === undefined ? {} : { columns: options.columns as ReadOptions['columns'] }),
-      ...(timeZone === undefined ? {} : { timeZone }),
-      ...(options.inputCrs === undefined ? {} : { inputCrs: options.inputCrs }),
-    };
+    readOptions = buildReadOptions(options, config);
   } catch (error) {
-    if (error instanceof CoreInvalidArgumentError || error instanceof ConfigFileError) {
+    if (
+      error instanceof CoreInvalidArgumentError ||
+      error instanceof ConfigFileError ||
+      error instanceof UsageProblem
+    ) {
       io.stderr(`leadline inspect: ${error.message}\n`);
       return EXIT_USAGE;
     }

@@ -12,6 +12,7 @@ import {
 import { Option } from 'commander';
 import { EXIT_IO, EXIT_OK, EXIT_USAGE } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
+import { buildReadOptions } from '../support/build-read-options.js';
 import {
   addCommonOptions,
   type CommonOptions,
@@ -120,8 +121,10 @@ export async function runResolve(
   let setup: ResolveSetup;
   let auditProfile: AuditProfile;
 
+  let readOptions: ReadOptions;
   try {
     const { config } = await loadConfig(options.config, cwd);
+    readOptions = buildReadOptions(options, config);
     const setupText = options.setup ?? config.defaults?.setup;
     if (setupText === undefined)
       throw new UsageProblem('resolve needs --setup <file|name|JSON> (or defaults.setup in the config file)');
@@ -153,12 +156,6 @@ export async function runResolve(
       ? undefined
       : new OutputFolder(resolvePath(cwd, options.out), { force: options.force, inputs });
   const progress = startProgress(io, inputs.length, options);
-  const readOptions: ReadOptions = {
-    ...(options.as === undefined ? {} : { format: options.as as ReadOptions['format'] }),
-    ...(options.columns === undefined ? {} : { columns: options.columns as ReadOptions['columns'] }),
-    ...(options.tz === undefined ? {} : { timeZone: options.tz }),
-    ...(options.inputCrs === undefined ? {} : { inputCrs: options.inputCrs }),
-  };
   const pool = createTaskPool(Math.min(options.jobs, inputs.length));
   let results: Awaited<ReturnType<typeof runPool<InputFile, ResolveFileReport>>>;
   try {

@@ -9,6 +9,7 @@ import {
 import { InvalidArgumentError, Option } from 'commander';
 import { EXIT_IO, EXIT_OK, EXIT_USAGE } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
+import { buildReadOptions } from '../support/build-read-options.js';
 import {
   addCommonOptions,
   type CommonOptions,
@@ -24,6 +25,7 @@ import {
   type WrittenOutput,
 } from '../support/index.js';
 import { createTaskPool } from '../support/task-pool.js';
+import { UsageProblem } from '../support/usage-problem.js';
 import type { RegisterCommand } from './index.js';
 import {
   SPLIT_FORMATS,
@@ -110,8 +112,10 @@ export async function runSplit(
   cwd: string = process.cwd(),
 ): Promise<number> {
   let split: SplitOptions;
+  let readOptions: ReadOptions;
   try {
     const { config } = await loadConfig(options.config, cwd);
+    readOptions = buildReadOptions(options, config);
     const profile = resolveAuditProfile(
       options.profile ?? config.defaults?.profile ?? 'inspection-rov',
       parseUserProfiles(config.profiles ?? {}),
@@ -122,7 +126,11 @@ export async function runSplit(
       surfaceIntervalS: options.surfaceTime ?? profile.surfaceIntervalS,
     };
   } catch (error) {
-    if (error instanceof CoreInvalidArgumentError || error instanceof ConfigFileError) {
+    if (
+      error instanceof CoreInvalidArgumentError ||
+      error instanceof ConfigFileError ||
+      error instanceof UsageProblem
+    ) {
       io.stderr(`leadline split: ${error.message}\n`);
       return EXIT_USAGE;
     }
@@ -134,12 +142,6 @@ export async function runSplit(
     options.out === undefined
       ? undefined
       : new OutputFolder(resolvePath(cwd, options.out), { force: options.force, inputs });
-  const readOptions: ReadOptions = {
-    ...(options.as === undefined ? {} : { format: options.as as ReadOptions['format'] }),
-    ...(options.columns === undefined ? {} : { columns: options.columns as ReadOptions['columns'] }),
-    ...(options.tz === undefined ? {} : { timeZone: options.tz }),
-    ...(options.inputCrs === undefined ? {} : { inputCrs: options.inputCrs }),
-  };
   const progress = startProgress(io, inputs.length, options);
   const pool = createTaskPool(Math.min(options.jobs, inputs.length));
   let results: Awaited<ReturnType<typeof runPool<InputFile, SplitFileReport>>>;

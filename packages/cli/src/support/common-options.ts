@@ -5,7 +5,8 @@ import { type Command, InvalidArgumentError, Option } from 'commander';
 export interface CommonOptions {
   out?: string;
   as?: string;
-  columns?: Record<string, string>;
+  /** A column map, or the name of one under "columns" in the config file. */
+  columns?: Record<string, string> | string;
   tz?: string;
   inputCrs?: string;
   config?: string;
@@ -49,8 +50,9 @@ export function addCommonOptions(command: Command): Command {
     .option('--force', 'overwrite existing outputs', false);
 }
 
-/** Reads `key=Header,key2=Header 2` into a map; commander reports a malformed one as a usage error. */
-export function parseColumnMap(text: string): Record<string, string> {
+/** Reads `key=Header,key2=Header 2` into a map, or keeps a bare name (a map in the config file); commander reports a malformed one as a usage error. */
+export function parseColumnMap(text: string): Record<string, string> | string {
+  if (/^[A-Za-z0-9_.-]+$/.test(text.trim())) return text.trim();
   const map: Record<string, string> = {};
   for (const pair of text.split(',')) {
     const at = pair.indexOf('=');

@@ -3,6 +3,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { LEADLINE_VERSION } from '@leadline/core';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import { buildReadOptions } from './build-read-options.js';
 import { parseColumnMap } from './common-options.js';
 import { loadConfig } from './load-config.js';
 import { MANIFEST_FILE, OutputFolder, sha256Hex } from './output-folder.js';
@@ -93,9 +94,28 @@ describe('OutputFolder', () => {
 });
 
 describe('parseColumnMap', () => {
-  it('reads key=column pairs and refuses a pair without =', () => {
+  it('reads key=column pairs, keeps a bare name for the config file, and refuses a pair without a column', () => {
     expect(parseColumnMap('latDeg=Lat (deg), lonDeg=Lon')).toEqual({ latDeg: 'Lat (deg)', lonDeg: 'Lon' });
-    expect(() => parseColumnMap('latDeg')).toThrow(/not key=column/);
+    expect(parseColumnMap('pen-logger')).toBe('pen-logger');
+    expect(() => parseColumnMap('latDeg=')).toThrow(/not key=column/);
+    expect(() => parseColumnMap('latDeg=Lat,lonDeg')).toThrow(/not key=column/);
+  });
+});
+
+describe('buildReadOptions', () => {
+  const config = { columns: { 'pen-logger': { latDeg: 'B', lonDeg: 'L' } }, defaults: { tz: 'Europe/Oslo' } };
+
+  it('takes a named column map and the default time zone from the config file', () => {
+    expect(buildReadOptions({ columns: 'pen-logger' }, config)).toEqual({
+      columns: { latDeg: 'B', lonDeg: 'L' },
+      timeZone: 'Europe/Oslo',
+    });
+    expect(buildReadOptions({ tz: 'UTC', as: 'csv' }, config)).toEqual({ timeZone: 'UTC', format: 'csv' });
+  });
+
+  it('names the maps there are when a name is unknown, and refuses an unknown time zone', () => {
+    expect(() => buildReadOptions({ columns: 'quay' }, config)).toThrow(/no column map by that name.*pen-logger/);
+    expect(() => buildReadOptions({ tz: 'Europe/Osl' }, config)).toThrow(/unknown time zone "Europe\/Osl"/);
   });
 });
 
