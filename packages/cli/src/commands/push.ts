@@ -48,7 +48,7 @@ export const registerPush: RegisterCommand = (program, context) => {
       'after',
       `
 The server keeps each file's bytes verbatim with its SHA-256; pushing the same file again returns the
-log already archived. Create a read-write token on the server's tokens page.
+log already archived. Create a read-write token with POST /api/v1/organisations/<id>/tokens while signed in.
 
 Examples:
   export LEADLINE_TOKEN=llt_...
@@ -73,7 +73,7 @@ function parseServerUrl(text: string): string {
 /** Uploads every input into the project; returns the exit code (3 when any file could not be read or sent). */
 export async function runPush(args: PushArgs, io: CliIo): Promise<number> {
   if (!args.token) {
-    io.stderr(`leadline push: set ${TOKEN_VARIABLE} to an API token of the server (create one on its tokens page)\n`);
+    io.stderr(`leadline push: set ${TOKEN_VARIABLE} to an API token of the server (create one with POST /api/v1/organisations/<id>/tokens while signed in)\n`);
     return EXIT_USAGE;
   }
   const { inputs, problems } = await resolveInputs(args.inputs, args.cwd);
