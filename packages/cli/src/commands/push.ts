@@ -73,7 +73,9 @@ function parseServerUrl(text: string): string {
 /** Uploads every input into the project; returns the exit code (3 when any file could not be read or sent). */
 export async function runPush(args: PushArgs, io: CliIo): Promise<number> {
   if (!args.token) {
-    io.stderr(`leadline push: set ${TOKEN_VARIABLE} to an API token of the server (create one with POST /api/v1/organisations/<id>/tokens while signed in)\n`);
+    io.stderr(
+      `leadline push: set ${TOKEN_VARIABLE} to an API token of the server (create one with POST /api/v1/organisations/<id>/tokens while signed in)\n`,
+    );
     return EXIT_USAGE;
   }
   const { inputs, problems } = await resolveInputs(args.inputs, args.cwd);
