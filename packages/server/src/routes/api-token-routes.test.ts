@@ -49,6 +49,29 @@ describe('createApiTokenRoutes', () => {
     expect(used.last_used_at).not.toBeNull();
   });
 
+  it('keeps "last used" to the minute instead of writing it on every request', async () => {
+    const tomas = await signedInAgent(testApp, 'tomas@hollowtide.example');
+    const created = await tomas
+      .post(`/api/v1/organisations/${organisationId}/tokens`)
+      .set(...SAME)
+      .send({ name: 'busy pipeline', scope: 'read', expiresInDays: 30 })
+      .expect(201);
+    const lastUsed = async () =>
+      (await database.db('api_tokens').where({ id: created.body.apiToken.id }).first()).last_used_at.getTime();
+    const call = () =>
+      request(testApp.app).get('/api/v1/me').set('Authorization', `Bearer ${created.body.token}`).expect(200);
+    const start = now;
+    await call();
+    const first = await lastUsed();
+    now = new Date(start.getTime() + 30_000);
+    await call();
+    expect(await lastUsed()).toBe(first);
+    now = new Date(start.getTime() + 61_000);
+    await call();
+    expect(await lastUsed()).toBe(start.getTime() + 61_000);
+    now = start;
+  });
+
   it('lets a viewer create read tokens only', async () => {
     const ilse = await signedInAgent(testApp, 'ilse@hollowtide.example');
     const refused = await ilse

@@ -91,6 +91,9 @@ export async function revokeApiToken(
   return record;
 }
 
+/** How fresh a token's "last used" time is kept, in ms. */
+export const LAST_USED_RESOLUTION_MS = 60_000;
+
 /** Resolves a presented token; `undefined` when unknown, revoked, expired or its user left the organisation. */
 export async function authenticateApiToken(deps: Deps, token: string): Promise<TokenIdentity | undefined> {
   if (!token.startsWith(API_TOKEN_PREFIX)) return undefined;
@@ -100,7 +103,11 @@ export async function authenticateApiToken(deps: Deps, token: string): Promise<T
   if (record.expiresAt !== null && record.expiresAt.getTime() <= now.getTime()) return undefined;
   const role = await deps.users.roleOf(record.organisationId, record.userId);
   if (role === undefined) return undefined;
-  await deps.tokens.markUsed(record.id, now);
+  // "Last used" is kept to the minute: writing it on every request would make every pipeline call a
+  // row update, and concurrent calls with one token would queue on that row.
+  if (record.lastUsedAt === null || now.getTime() - record.lastUsedAt.getTime() >= LAST_USED_RESOLUTION_MS) {
+    await deps.tokens.markUsed(record.id, now);
+  }
   return {
     tokenId: record.id,
     userId: record.userId,
