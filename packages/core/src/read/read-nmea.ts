@@ -1,5 +1,5 @@
 import type { RejectionCode } from '../model/rejection.js';
-import type { Fix, TrackRole } from '../model/track.js';
+import type { TrackRole } from '../model/track.js';
 import { MPS_PER_KNOT, normaliseAzimuthDeg } from '../model/units.js';
 import { collectReadEvents } from './collect-read-events.js';
 import { decodeLogText } from './decode-log-text.js';
@@ -7,7 +7,7 @@ import type { LogInput, LogReadResult, ReadOptions } from './log-read-result.js'
 import { parseDecimal } from './parse-csv-row-fast.js';
 import { EARLIEST_TIME_MS, LATEST_TIME_MS, LogTimeParser } from './parse-log-time.js';
 import { type LogTextInput, refusedLog } from './read-csv.js';
-import type { ReadEvent } from './read-event.js';
+import type { FixBatch, ReadEvent } from './read-event.js';
 import { iterateLogLines } from './split-log-lines.js';
 
 const DAY_MS = 86_400_000;
@@ -17,13 +17,69 @@ const MAX_UNDATED_EPOCHS = 100_000;
 /** NMEA 0183 limit: 82 characters including `$` and CR LF (NMEA Revealed, E. S. Raymond). */
 const NMEA_MAX_SENTENCE = 82;
 
+/** One fix being assembled from the sentences of one time of day; `NaN` where a value is missing. */
 interface Epoch {
   todMs: number;
   line: number;
-  fix: Fix;
-  /** UTC ms of 00:00 of the epoch's date, when an RMC in the epoch gave it. */
-  dayMs?: number;
-  hasPosition: boolean;
+  /** UTC ms of 00:00 of the epoch's date, when an RMC in the epoch gave it, else `NaN`. */
+  dayMs: number;
+  latDeg: number;
+  lonDeg: number;
+  depthM: number;
+  headingDeg: number;
+  speedMps: number;
+  quality: number;
+}
+
+function newEpoch(): Epoch {
+  const nan = Number.NaN;
+  return {
+    todMs: 0,
+    line: 0,
+    dayMs: nan,
+    latDeg: nan,
+    lonDeg: nan,
+    depthM: nan,
+    headingDeg: nan,
+    speedMps: nan,
+    quality: nan,
+  };
+}
+
+/** Fixes per `fix-batch` event. */
+const NMEA_BATCH_SIZE = 4096;
+
+function newNmeaBatch(): FixBatch {
+  const column = () => new Float64Array(NMEA_BATCH_SIZE);
+  return {
+    count: 0,
+    lines: new Uint32Array(NMEA_BATCH_SIZE),
+    columns: {
+      timeMs: column(),
+      latDeg: column(),
+      lonDeg: column(),
+      depthM: column(),
+      headingDeg: column(),
+      speedMps: column(),
+      quality: column(),
+    },
+  };
+}
+
+// Sentence kinds told apart without copying the address.
+const UNUSED = 0;
+const OTHER = 1;
+const GGA = 2;
+const RMC = 3;
+
+/** GGA or RMC (any letter case) from the last three characters of the address ending at `end`, else OTHER. */
+function sentenceKind(src: string, end: number): number {
+  const a = src.charCodeAt(end - 3) | 32;
+  const b = src.charCodeAt(end - 2) | 32;
+  const c = src.charCodeAt(end - 1) | 32;
+  if (a === 103 && b === 103 && c === 97) return GGA; // g g a
+  if (a === 114 && b === 109 && c === 99) return RMC; // r m c
+  return OTHER;
 }
 
 /**
@@ -56,9 +112,12 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
   let rowCount = 0;
   let dayMs: number | undefined; // 00:00 UTC of the current date
   let lastTodMs: number | undefined;
-  let current: Epoch | undefined;
-  let extras: Partial<Fix> = {};
-  let extrasPending = false;
+  /** The open epoch, reused (one shape, no object per fix); `open` says whether it holds one. */
+  const current: Epoch = newEpoch();
+  let open = false;
+  // heading and speed (VTG, HDT, HDG) that came before the first epoch; NaN when none
+  let extraHeadingDeg = Number.NaN;
+  let extraSpeedMps = Number.NaN;
   const undated: Epoch[] = [];
   const unused = new Map<string, number>();
   let withoutChecksum = 0;
@@ -71,11 +130,44 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
     rejection:
       column === undefined ? { file, line, code, expected, found } : { file, line, column, code, expected, found },
   });
+  // Fixes go out column by column in batches; every other event first hands on the batch gathered
+  // so far, so events keep the order they had one fix at a time.
+  let batch = newNmeaBatch();
+  /** The batch is already queued in `out`: a further fix starts a new one. */
+  let sealed = false;
   /** Events made by the helpers below, handed on after each sentence (plain functions: no generator per sentence). */
   const out: ReadEvent[] = [];
+  const pushEvent = (event: ReadEvent): void => {
+    if (batch.count > 0 && !sealed) {
+      out.push({ kind: 'fix-batch', batch });
+      sealed = true;
+    }
+    out.push(event);
+  };
+  const addFix = (epoch: Epoch, timeMs: number): void => {
+    if (sealed) {
+      batch = newNmeaBatch();
+      sealed = false;
+    }
+    const i = batch.count;
+    const c = batch.columns;
+    (c.timeMs as Float64Array)[i] = timeMs;
+    (c.latDeg as Float64Array)[i] = epoch.latDeg;
+    (c.lonDeg as Float64Array)[i] = epoch.lonDeg;
+    (c.depthM as Float64Array)[i] = epoch.depthM;
+    (c.headingDeg as Float64Array)[i] = epoch.headingDeg;
+    (c.speedMps as Float64Array)[i] = epoch.speedMps;
+    (c.quality as Float64Array)[i] = epoch.quality;
+    batch.lines[i] = epoch.line;
+    batch.count = i + 1;
+    if (batch.count === NMEA_BATCH_SIZE) {
+      out.push({ kind: 'fix-batch', batch });
+      sealed = true;
+    }
+  };
   /** Dates an epoch from the carried date, rolling over at midnight. */
   const dateEpoch = (epoch: Epoch): void => {
-    if (epoch.dayMs !== undefined) {
+    if (!Number.isNaN(epoch.dayMs)) {
       dayMs = epoch.dayMs;
     } else if (dayMs !== undefined && lastTodMs !== undefined && epoch.todMs < lastTodMs - HALF_DAY_MS) {
       dayMs += DAY_MS; // midnight passed since the last dated sentence
@@ -88,63 +180,86 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
   const emitEpoch = (epoch: Epoch, day: number): void => {
     const timeMs = day + epoch.todMs;
     if (timeMs >= EARLIEST_TIME_MS && timeMs < LATEST_TIME_MS) {
-      epoch.fix.timeMs = timeMs;
-      out.push({ kind: 'fix', fix: epoch.fix, line: epoch.line });
+      addFix(epoch, timeMs);
       return;
     }
     const t = times.acceptUtc(timeMs);
     if (!t.ok) {
-      out.push(reject(epoch.line, t.code, t.expected, new Date(day + epoch.todMs).toISOString()));
+      pushEvent(reject(epoch.line, t.code, t.expected, new Date(day + epoch.todMs).toISOString()));
       return;
     }
-    epoch.fix.timeMs = t.timeMs;
-    out.push({ kind: 'fix', fix: epoch.fix, line: epoch.line });
+    addFix(epoch, t.timeMs);
   };
   const flush = (): void => {
+    if (!open) return;
+    open = false;
     const epoch = current;
-    current = undefined;
-    if (epoch === undefined) return;
-    if (dayMs === undefined && epoch.dayMs === undefined) {
+    if (dayMs === undefined && Number.isNaN(epoch.dayMs)) {
       if (undated.length >= MAX_UNDATED_EPOCHS) {
-        out.push(reject(epoch.line, 'no-date', 'a date from an RMC or ZDA sentence before this fix', 'no date yet'));
+        pushEvent(reject(epoch.line, 'no-date', 'a date from an RMC or ZDA sentence before this fix', 'no date yet'));
         return;
       }
-      undated.push(epoch);
+      undated.push({ ...epoch });
       return;
     }
     if (undated.length > 0) {
-      const firstDay = epoch.dayMs ?? (dayMs as number);
+      const firstDay = Number.isNaN(epoch.dayMs) ? (dayMs as number) : epoch.dayMs;
       const anchorTod = epoch.todMs;
       for (const u of undated) emitEpoch(u, u.todMs > anchorTod + HALF_DAY_MS ? firstDay - DAY_MS : firstDay);
       undated.length = 0;
     }
     dateEpoch(epoch);
   };
-  /** Starts or joins the epoch at `todMs`; returns whether the sentence was merged into an open one. */
-  const joinEpoch = (todMs: number, line: number): Epoch => {
-    if (current !== undefined && current.todMs === todMs) {
-      out.push({ kind: 'non-fix-row', line, why: 'merged into the fix of the same time' });
+  /** Starts the epoch at `todMs` with this position, or joins the open one of the same time (keeping its position). */
+  const joinEpoch = (todMs: number, line: number, latDeg: number, lonDeg: number): Epoch => {
+    if (open && current.todMs === todMs) {
+      pushEvent({ kind: 'non-fix-row', line, why: 'merged into the fix of the same time' });
       return current;
     }
     flush();
-    const fix: Fix = { timeMs: Number.NaN, latDeg: Number.NaN, lonDeg: Number.NaN };
-    if (extrasPending) {
-      Object.assign(fix, extras);
-      extras = {};
-      extrasPending = false;
-    }
-    current = { todMs, line, fix, hasPosition: false };
+    current.todMs = todMs;
+    current.line = line;
+    current.dayMs = Number.NaN;
+    current.latDeg = latDeg;
+    current.lonDeg = lonDeg;
+    current.depthM = Number.NaN;
+    current.headingDeg = extraHeadingDeg;
+    current.speedMps = extraSpeedMps;
+    current.quality = Number.NaN;
+    extraHeadingDeg = Number.NaN;
+    extraSpeedMps = Number.NaN;
+    open = true;
     return current;
+  };
+  /** Merges a heading into the open epoch, or keeps it for the next one; NaN is ignored. */
+  const attachHeading = (headingDeg: number): void => {
+    if (Number.isNaN(headingDeg)) return;
+    if (open) current.headingDeg = headingDeg;
+    else extraHeadingDeg = headingDeg;
+  };
+  const attachSpeed = (speedMps: number): void => {
+    if (Number.isNaN(speedMps)) return;
+    if (open) current.speedMps = speedMps;
+    else extraSpeedMps = speedMps;
   };
   const fields = new NmeaFields();
   for (const c of iterateLogLines(input.chunks)) {
     if (out.length > 0) {
       for (let k = 0; k < out.length; k++) yield out[k] as ReadEvent;
       out.length = 0;
+      if (sealed) {
+        // the consumer has moved past the queued batch: its arrays can be filled again
+        batch.count = 0;
+        sealed = false;
+      }
     }
     const line = c.line;
     if (c.tooLongChars >= 0) {
       rowCount++;
+      if (batch.count > 0) {
+        yield { kind: 'fix-batch', batch };
+        batch.count = 0;
+      }
       yield reject(line, 'line-too-long', 'an NMEA sentence of at most 82 characters', `${c.tooLongChars} characters`);
       continue;
     }
@@ -159,6 +274,10 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
     let at = src.charCodeAt(from) === 36 ? from : src.indexOf('$', from);
     if (at < 0 || at >= to) at = src.indexOf('!', from);
     if (at < 0 || at >= to) {
+      if (batch.count > 0) {
+        yield { kind: 'fix-batch', batch };
+        batch.count = 0;
+      }
       yield reject(
         line,
         'unsupported-sentence',
@@ -168,12 +287,15 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
       continue;
     }
     if (to - at + 2 > NMEA_MAX_SENTENCE) overLength++;
-    const star = src.lastIndexOf('*', to - 1);
-    let bodyEnd = to;
-    if (star > at) {
-      bodyEnd = star;
-      const x = xorOfRange(src, at + 1, star);
+    // one pass finds the fields and the checksum; fields are then read in place, copied only on rare paths
+    const x = fields.scan(src, at + 1, to);
+    const star = fields.star;
+    if (star >= 0) {
       if (hexByteAt(src, star + 1, to) !== x) {
+        if (batch.count > 0) {
+          yield { kind: 'fix-batch', batch };
+          batch.count = 0;
+        }
         yield reject(
           line,
           'bad-checksum',
@@ -186,106 +308,122 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
     } else {
       withoutChecksum++;
     }
-    // fields are found in place and copied only when read (no split of every sentence)
-    fields.reset(src, at + 1, bodyEnd);
-    const address = fields.get(0);
-    if (src.charCodeAt(at) === 33 || address.length < 5 || address.charCodeAt(0) === 80 /* P: proprietary */) {
+    const addressStart = fields.start(0);
+    const addressEnd = fields.end(0);
+    const kind =
+      src.charCodeAt(at) === 33 ||
+      addressEnd - addressStart < 5 ||
+      src.charCodeAt(addressStart) === 80 /* P: proprietary */
+        ? UNUSED
+        : sentenceKind(src, addressEnd);
+    if (kind === GGA) {
+      const tod = parseTimeOfDayIn(src, fields.start(1), fields.end(1));
+      const quality = fields.number(6);
+      const lat = parseNmeaCoordinateIn(src, fields.start(2), fields.end(2), fields.letter(3), 2);
+      const lon = parseNmeaCoordinateIn(src, fields.start(4), fields.end(4), fields.letter(5), 3);
+      if (tod !== undefined && quality !== 0 && lat !== undefined && lon !== undefined) {
+        const epoch = joinEpoch(tod, line, lat, lon);
+        if (!Number.isNaN(quality)) epoch.quality = quality;
+        const altitude = fields.number(9);
+        if (Number.isFinite(altitude)) {
+          epoch.depthM = -altitude + 0;
+          altitudes++;
+          if (altitude > 0) positiveAltitudes++;
+        }
+        continue;
+      }
+      if (batch.count > 0) {
+        yield { kind: 'fix-batch', batch };
+        batch.count = 0;
+      }
+      if (tod === undefined) {
+        yield reject(line, 'unparsable-time', 'a UTC time of day hhmmss.ss in GGA field 1', quote(fields.get(1)), 2);
+        continue;
+      }
+      if (quality === 0 || fields.isEmpty(2) || fields.isEmpty(4)) {
+        yield reject(
+          line,
+          'no-fix',
+          'a GGA position with fix quality 1-8',
+          quality === 0 ? 'quality 0 (no fix)' : 'an empty position',
+        );
+        continue;
+      }
+      yield reject(
+        line,
+        'unparsable-coordinate',
+        lat === undefined ? 'latitude ddmm.mmmm with N or S' : 'longitude dddmm.mmmm with E or W',
+        quote(lat === undefined ? `${fields.get(2)},${fields.get(3)}` : `${fields.get(4)},${fields.get(5)}`),
+      );
+      continue;
+    }
+    if (kind === RMC) {
+      const tod = parseTimeOfDayIn(src, fields.start(1), fields.end(1));
+      const day = parseNmeaDateIn(src, fields.start(9), fields.end(9));
+      const active = fields.letter(2) === 65; /* A */
+      const lat = parseNmeaCoordinateIn(src, fields.start(3), fields.end(3), fields.letter(4), 2);
+      const lon = parseNmeaCoordinateIn(src, fields.start(5), fields.end(5), fields.letter(6), 3);
+      if (
+        tod !== undefined &&
+        active &&
+        lat !== undefined &&
+        lon !== undefined &&
+        (day !== undefined || fields.isEmpty(9))
+      ) {
+        const epoch = joinEpoch(tod, line, lat, lon);
+        if (day !== undefined) epoch.dayMs = day;
+        const sog = fields.number(7);
+        if (!Number.isNaN(sog) && Number.isNaN(epoch.speedMps)) epoch.speedMps = sog * MPS_PER_KNOT;
+        continue;
+      }
+      if (batch.count > 0) {
+        yield { kind: 'fix-batch', batch };
+        batch.count = 0;
+      }
+      if (tod === undefined) {
+        yield reject(line, 'unparsable-time', 'a UTC time of day hhmmss.ss in RMC field 1', quote(fields.get(1)), 2);
+        continue;
+      }
+      if (!active || fields.isEmpty(3) || fields.isEmpty(5)) {
+        if (day !== undefined && !open) {
+          dayMs = day;
+          lastTodMs = tod;
+        }
+        yield reject(
+          line,
+          'no-fix',
+          'an RMC with status A and a position',
+          fields.get(2) === 'V' ? 'status V (warning, no valid fix)' : 'an empty position',
+        );
+        continue;
+      }
+      if (lat === undefined || lon === undefined) {
+        yield reject(
+          line,
+          'unparsable-coordinate',
+          lat === undefined ? 'latitude ddmm.mmmm with N or S' : 'longitude dddmm.mmmm with E or W',
+          quote(lat === undefined ? `${fields.get(3)},${fields.get(4)}` : `${fields.get(5)},${fields.get(6)}`),
+        );
+        continue;
+      }
+      yield reject(line, 'unparsable-time', 'an RMC date ddmmyy in field 9', quote(fields.get(9)), 10);
+      continue;
+    }
+    // every other sentence yields an event of its own: hand on the fixes gathered so far first
+    if (batch.count > 0) {
+      yield { kind: 'fix-batch', batch };
+      batch.count = 0;
+    }
+    if (kind === UNUSED) {
+      const address = fields.get(0);
       unused.set(address, (unused.get(address) ?? 0) + 1);
       yield { kind: 'non-fix-row', line, why: 'sentence type not used' };
       continue;
     }
+    const address = fields.get(0);
     const typeRaw = address.slice(address.length - 3);
     const type = typeRaw === typeRaw.toUpperCase() ? typeRaw : typeRaw.toUpperCase();
     switch (type) {
-      case 'GGA': {
-        const tod = parseTimeOfDay(fields.get(1));
-        if (tod === undefined) {
-          yield reject(line, 'unparsable-time', 'a UTC time of day hhmmss.ss in GGA field 1', quote(fields.get(1)), 2);
-          continue;
-        }
-        const quality = fields.number(6);
-        if (quality === 0 || fields.isEmpty(2) || fields.isEmpty(4)) {
-          yield reject(
-            line,
-            'no-fix',
-            'a GGA position with fix quality 1-8',
-            quality === 0 ? 'quality 0 (no fix)' : 'an empty position',
-          );
-          continue;
-        }
-        const lat = parseNmeaCoordinate(fields.get(2), fields.get(3), 'lat');
-        const lon = parseNmeaCoordinate(fields.get(4), fields.get(5), 'lon');
-        if (lat === undefined || lon === undefined) {
-          yield reject(
-            line,
-            'unparsable-coordinate',
-            lat === undefined ? 'latitude ddmm.mmmm with N or S' : 'longitude dddmm.mmmm with E or W',
-            quote(lat === undefined ? `${fields.get(2)},${fields.get(3)}` : `${fields.get(4)},${fields.get(5)}`),
-          );
-          continue;
-        }
-        const epoch = joinEpoch(tod, line);
-        if (!epoch.hasPosition) {
-          epoch.fix.latDeg = lat;
-          epoch.fix.lonDeg = lon;
-          epoch.hasPosition = true;
-        }
-        if (!Number.isNaN(quality)) epoch.fix.quality = quality;
-        const altitude = fields.number(9);
-        if (Number.isFinite(altitude)) {
-          epoch.fix.depthM = -altitude + 0;
-          altitudes++;
-          if (altitude > 0) positiveAltitudes++;
-        }
-        break;
-      }
-      case 'RMC': {
-        const tod = parseTimeOfDay(fields.get(1));
-        if (tod === undefined) {
-          yield reject(line, 'unparsable-time', 'a UTC time of day hhmmss.ss in RMC field 1', quote(fields.get(1)), 2);
-          continue;
-        }
-        const day = parseNmeaDate(fields.get(9));
-        if (fields.get(2) !== 'A' || fields.get(3) === '' || fields.get(5) === '') {
-          if (day !== undefined && current === undefined) {
-            dayMs = day;
-            lastTodMs = tod;
-          }
-          yield reject(
-            line,
-            'no-fix',
-            'an RMC with status A and a position',
-            fields.get(2) === 'V' ? 'status V (warning, no valid fix)' : 'an empty position',
-          );
-          continue;
-        }
-        const lat = parseNmeaCoordinate(fields.get(3), fields.get(4), 'lat');
-        const lon = parseNmeaCoordinate(fields.get(5), fields.get(6), 'lon');
-        if (lat === undefined || lon === undefined) {
-          yield reject(
-            line,
-            'unparsable-coordinate',
-            lat === undefined ? 'latitude ddmm.mmmm with N or S' : 'longitude dddmm.mmmm with E or W',
-            quote(lat === undefined ? `${fields.get(3)},${fields.get(4)}` : `${fields.get(5)},${fields.get(6)}`),
-          );
-          continue;
-        }
-        if (fields.get(9) !== '' && day === undefined) {
-          yield reject(line, 'unparsable-time', 'an RMC date ddmmyy in field 9', quote(fields.get(9)), 10);
-          continue;
-        }
-        const epoch = joinEpoch(tod, line);
-        if (!epoch.hasPosition) {
-          epoch.fix.latDeg = lat;
-          epoch.fix.lonDeg = lon;
-          epoch.hasPosition = true;
-        }
-        if (day !== undefined) epoch.dayMs = day;
-        const sog = Number(fields.get(7));
-        if (fields.get(7) !== '' && Number.isFinite(sog) && Number.isNaN(epoch.fix.speedMps ?? Number.NaN))
-          epoch.fix.speedMps = sog * MPS_PER_KNOT;
-        break;
-      }
       case 'VTG': {
         // Older form `$--VTG,x.x,x,x.x,x.x`: field 2 is not the literal T (NMEA Revealed, VTG).
         const newer = fields.get(2) === 'T' || fields.get(2) === '';
@@ -297,13 +435,13 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
             : (newer ? fields.get(7) : fields.get(4)) !== '' && Number.isFinite(kmh)
               ? kmh / 3.6
               : Number.NaN;
-        attach({ speedMps: speed });
+        attachSpeed(speed);
         yield { kind: 'non-fix-row', line, why: 'VTG merged into the current fix' };
         break;
       }
       case 'HDT': {
         const heading = Number(fields.get(1));
-        if (fields.get(1) !== '' && Number.isFinite(heading)) attach({ headingDeg: normaliseAzimuthDeg(heading) });
+        if (fields.get(1) !== '' && Number.isFinite(heading)) attachHeading(normaliseAzimuthDeg(heading));
         yield { kind: 'non-fix-row', line, why: 'HDT merged into the current fix' };
         break;
       }
@@ -316,7 +454,7 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
             // true = magnetic + deviation + variation, east positive (NMEA HDG; from memory)
             const variation = Number(fields.get(4)) * (fields.get(5) === 'W' ? -1 : 1);
             const heading = magnetic + deviation + variation;
-            if (Number.isFinite(heading)) attach({ headingDeg: normaliseAzimuthDeg(heading) });
+            if (Number.isFinite(heading)) attachHeading(normaliseAzimuthDeg(heading));
           }
         }
         yield { kind: 'non-fix-row', line, why: 'HDG merged into the current fix' };
@@ -337,6 +475,8 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
           );
           continue;
         }
+        // this sentence's own event comes before the fixes it completes (queued in `out`)
+        yield { kind: 'non-fix-row', line, why: 'ZDA sets the date' };
         flush();
         const day = Date.UTC(y, m - 1, d);
         if (undated.length > 0) {
@@ -345,7 +485,6 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
         }
         dayMs = day;
         lastTodMs = tod;
-        yield { kind: 'non-fix-row', line, why: 'ZDA sets the date' };
         break;
       }
       default:
@@ -354,8 +493,9 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
     }
   }
   flush();
-  yield* out;
+  for (let k = 0; k < out.length; k++) yield out[k] as ReadEvent;
   out.length = 0;
+  if (!sealed && batch.count > 0) yield { kind: 'fix-batch', batch };
   for (const u of undated)
     yield reject(u.line, 'no-date', 'a date from an RMC or ZDA sentence somewhere in the log', 'none in the whole log');
   undated.length = 0;
@@ -388,22 +528,9 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
           },
   };
   yield { kind: 'end', rowCount, dialect: 'nmea-0183' };
-
-  function attach(values: Partial<Fix>): void {
-    if (current === undefined) extrasPending = true;
-    const target = current === undefined ? extras : current.fix;
-    for (const [k, v] of Object.entries(values))
-      if (typeof v === 'number' && !Number.isNaN(v)) (target as Record<string, number>)[k] = v;
-  }
 }
 
 const HEX = '0123456789ABCDEF';
-
-function xorOfRange(text: string, start: number, end: number): number {
-  let x = 0;
-  for (let i = start; i < end; i++) x ^= text.charCodeAt(i);
-  return x;
-}
 
 function hexDigit(code: number): number {
   if (code >= 48 && code <= 57) return code - 48;
@@ -427,20 +554,59 @@ class NmeaFields {
   #count = 0;
   readonly #starts = new Int32Array(64);
 
-  reset(src: string, start: number, end: number): void {
+  /** Position of the last `*` of the sentence (the checksum delimiter), or -1 when it has none. */
+  star = -1;
+
+  /**
+   * Finds the fields of the sentence from `start` (after `$`) to `end` in one pass: the body ends at
+   * the last `*` when there is one. Returns the XOR of the body's characters (the checksum).
+   */
+  scan(src: string, start: number, end: number): number {
     this.#src = src;
-    this.#end = end;
     const starts = this.#starts;
+    const max = starts.length;
     let n = 0;
     starts[n++] = start;
-    let at = start;
-    while (n < starts.length) {
-      const comma = src.indexOf(',', at);
-      if (comma < 0 || comma >= end) break;
-      at = comma + 1;
-      starts[n++] = at;
+    let x = 0;
+    let star = -1;
+    let xAtStar = 0;
+    let nAtStar = 0;
+    for (let i = start; i < end; i++) {
+      const c = src.charCodeAt(i);
+      if (c === 44) {
+        if (n < max) starts[n++] = i + 1;
+      } else if (c === 42) {
+        star = i;
+        xAtStar = x;
+        nAtStar = n;
+      }
+      x ^= c;
     }
+    this.star = star;
+    if (star >= 0) {
+      this.#end = star;
+      this.#count = nAtStar;
+      return xAtStar;
+    }
+    this.#end = end;
     this.#count = n;
+    return x;
+  }
+
+  /** Index in the source where field `i` starts (the body's end for a missing field). */
+  start(i: number): number {
+    return i < this.#count ? (this.#starts[i] as number) : this.#end;
+  }
+
+  /** Index in the source just past field `i` (the body's end for a missing field). */
+  end(i: number): number {
+    return i + 1 < this.#count ? (this.#starts[i + 1] as number) - 1 : this.#end;
+  }
+
+  /** The character code of field `i` when it is exactly one character, else -1. */
+  letter(i: number): number {
+    const start = this.start(i);
+    return this.end(i) - start === 1 ? this.#src.charCodeAt(start) : -1;
   }
 
   /** Whether field `i` is empty or missing. */
@@ -472,16 +638,21 @@ class NmeaFields {
 
 /** `hhmmss[.ss]` to milliseconds after midnight; `undefined` when malformed. */
 export function parseTimeOfDay(text: string): number | undefined {
-  const n = text.length;
-  if (n < 6 || (n > 6 && (n === 7 || text.charCodeAt(6) !== 46))) return undefined;
-  const h = twoDigits(text, 0);
-  const m = twoDigits(text, 2);
-  const whole = twoDigits(text, 4);
+  return parseTimeOfDayIn(text, 0, text.length);
+}
+
+/** `parseTimeOfDay` of characters `start` to `end` of `src`, read in place. */
+function parseTimeOfDayIn(src: string, start: number, end: number): number | undefined {
+  const n = end - start;
+  if (n < 6 || (n > 6 && (n === 7 || src.charCodeAt(start + 6) !== 46))) return undefined;
+  const h = twoDigits(src, start);
+  const m = twoDigits(src, start + 2);
+  const whole = twoDigits(src, start + 4);
   if (h < 0 || m < 0 || whole < 0 || h > 23 || m > 59 || whole > 60) return undefined;
   let fractionMs = 0;
   let scale = 100;
-  for (let i = 7; i < n; i++) {
-    const d = text.charCodeAt(i) - 48;
+  for (let i = start + 7; i < end; i++) {
+    const d = src.charCodeAt(i) - 48;
     if (d < 0 || d > 9) return undefined;
     fractionMs += d * scale;
     scale /= 10;
@@ -497,34 +668,58 @@ function twoDigits(text: string, at: number): number {
 
 /** `ddmmyy` to 00:00 UTC ms; two-digit years 80-99 are 19xx, 00-79 are 20xx (common practice for NMEA dates). */
 export function parseNmeaDate(text: string): number | undefined {
-  if (!/^\d{6}$/.test(text)) return undefined;
-  const d = Number(text.slice(0, 2));
-  const m = Number(text.slice(2, 4));
-  const yy = Number(text.slice(4, 6));
+  return parseNmeaDateIn(text, 0, text.length);
+}
+
+/** `parseNmeaDate` of characters `start` to `end` of `src`, read in place. */
+function parseNmeaDateIn(src: string, start: number, end: number): number | undefined {
+  if (end - start !== 6) return undefined;
+  const d = twoDigits(src, start);
+  const m = twoDigits(src, start + 2);
+  const yy = twoDigits(src, start + 4);
+  if (d < 0 || m < 0 || yy < 0) return undefined;
   if (d < 1 || d > 31 || m < 1 || m > 12) return undefined;
   return Date.UTC(yy >= 80 ? 1900 + yy : 2000 + yy, m - 1, d);
 }
 
 /** NMEA `(d)ddmm.mmmm` plus hemisphere letter to signed degrees; `undefined` when malformed or out of range. */
 export function parseNmeaCoordinate(value: string, hemisphere: string, axis: 'lat' | 'lon'): number | undefined {
-  const degDigits = axis === 'lat' ? 2 : 3;
-  const dot = value.indexOf('.');
-  const intLength = dot < 0 ? value.length : dot;
-  if (intLength !== degDigits + 2 || value.length === dot + 1) return undefined;
-  const valid = axis === 'lat' ? hemisphere === 'N' || hemisphere === 'S' : hemisphere === 'E' || hemisphere === 'W';
+  const letter = hemisphere.length === 1 ? hemisphere.charCodeAt(0) : -1;
+  return parseNmeaCoordinateIn(value, 0, value.length, letter, axis === 'lat' ? 2 : 3);
+}
+
+/**
+ * `parseNmeaCoordinate` of characters `start` to `end` of `src`, read in place, with the hemisphere
+ * as one character code (-1 when the field is not one character) and 2 (latitude) or 3 (longitude) degree digits.
+ */
+function parseNmeaCoordinateIn(
+  src: string,
+  start: number,
+  end: number,
+  hemisphere: number,
+  degDigits: number,
+): number | undefined {
+  const lat = degDigits === 2;
+  let dot = src.indexOf('.', start);
+  if (dot >= end) dot = -1;
+  const intLength = dot < 0 ? end - start : dot - start;
+  if (intLength !== degDigits + 2 || end === dot + 1) return undefined;
+  const south = hemisphere === 83; // S
+  const west = hemisphere === 87; // W
+  const valid = lat ? hemisphere === 78 || south : hemisphere === 69 || west; // N, E
   if (!valid) return undefined;
   let deg = 0;
-  for (let i = 0; i < degDigits; i++) {
-    const d = value.charCodeAt(i) - 48;
+  for (let i = start; i < start + degDigits; i++) {
+    const d = src.charCodeAt(i) - 48;
     if (d < 0 || d > 9) return undefined;
     deg = deg * 10 + d;
   }
-  const min = parseDecimal(value, degDigits, value.length);
-  if (Number.isNaN(min) || min >= 60 || value.charCodeAt(degDigits) === 45 || value.charCodeAt(degDigits) === 43)
-    return undefined;
+  const min = parseDecimal(src, start + degDigits, end);
+  const sign = src.charCodeAt(start + degDigits);
+  if (Number.isNaN(min) || min >= 60 || sign === 45 || sign === 43) return undefined;
   const magnitude = deg + min / 60;
-  if (magnitude > (axis === 'lat' ? 90 : 180)) return undefined;
-  return hemisphere === 'S' || hemisphere === 'W' ? -magnitude : magnitude;
+  if (magnitude > (lat ? 90 : 180)) return undefined;
+  return south || west ? -magnitude : magnitude;
 }
 
 function quote(text: string): string {
