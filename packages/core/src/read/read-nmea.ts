@@ -243,6 +243,56 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
     else extraSpeedMps = speedMps;
   };
   const fields = new NmeaFields();
+  /**
+   * The hot path, outside the generator: a GGA or RMC sentence that makes or joins a fix without any
+   * finding. Returns false, having changed nothing but `fields`, for everything else (read below).
+   */
+  const readFixSentence = (src: string, at: number, to: number, line: number): boolean => {
+    const x = fields.scan(src, at + 1, to);
+    const star = fields.star;
+    if (star >= 0 && hexByteAt(src, star + 1, to) !== x) return false;
+    const addressStart = fields.start(0);
+    const addressEnd = fields.end(0);
+    if (src.charCodeAt(at) === 33 || addressEnd - addressStart < 5 || src.charCodeAt(addressStart) === 80) return false;
+    const kind = sentenceKind(src, addressEnd);
+    if (kind === GGA) {
+      const tod = parseTimeOfDayIn(src, fields.start(1), fields.end(1));
+      if (tod === undefined) return false;
+      const quality = fields.number(6);
+      if (quality === 0) return false;
+      const lat = parseNmeaCoordinateIn(src, fields.start(2), fields.end(2), fields.letter(3), 2);
+      if (lat === undefined) return false;
+      const lon = parseNmeaCoordinateIn(src, fields.start(4), fields.end(4), fields.letter(5), 3);
+      if (lon === undefined) return false;
+      if (star < 0) withoutChecksum++;
+      const epoch = joinEpoch(tod, line, lat, lon);
+      if (!Number.isNaN(quality)) epoch.quality = quality;
+      const altitude = fields.number(9);
+      if (Number.isFinite(altitude)) {
+        epoch.depthM = -altitude + 0;
+        altitudes++;
+        if (altitude > 0) positiveAltitudes++;
+      }
+      return true;
+    }
+    if (kind === RMC) {
+      const tod = parseTimeOfDayIn(src, fields.start(1), fields.end(1));
+      if (tod === undefined || fields.letter(2) !== 65 /* A */) return false;
+      const day = parseNmeaDateIn(src, fields.start(9), fields.end(9));
+      if (day === undefined && !fields.isEmpty(9)) return false;
+      const lat = parseNmeaCoordinateIn(src, fields.start(3), fields.end(3), fields.letter(4), 2);
+      if (lat === undefined) return false;
+      const lon = parseNmeaCoordinateIn(src, fields.start(5), fields.end(5), fields.letter(6), 3);
+      if (lon === undefined) return false;
+      if (star < 0) withoutChecksum++;
+      const epoch = joinEpoch(tod, line, lat, lon);
+      if (day !== undefined) epoch.dayMs = day;
+      const sog = fields.number(7);
+      if (!Number.isNaN(sog) && Number.isNaN(epoch.speedMps)) epoch.speedMps = sog * MPS_PER_KNOT;
+      return true;
+    }
+    return false;
+  };
   for (const c of iterateLogLines(input.chunks)) {
     if (out.length > 0) {
       for (let k = 0; k < out.length; k++) yield out[k] as ReadEvent;
@@ -287,6 +337,7 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
       continue;
     }
     if (to - at + 2 > NMEA_MAX_SENTENCE) overLength++;
+    if (readFixSentence(src, at, to, line)) continue;
     // one pass finds the fields and the checksum; fields are then read in place, copied only on rare paths
     const x = fields.scan(src, at + 1, to);
     const star = fields.star;
