@@ -9,6 +9,7 @@ import { createTestDatabase } from '../../../../tests/support/test-database.js';
 import { startFakeSmtpServer } from '../mail/fake-smtp-server.js';
 import { createSmtpMailer } from '../mail/mailer.js';
 import { createTestApp, seedOrganisation, signedInAgent, type TestApp } from '../testing/create-test-app.js';
+import { PROCESSING_QUEUE } from './processing-queue.js';
 import { type Processing, startProcessing } from './start-processing.js';
 
 const SAME = ['Sec-Fetch-Site', 'same-origin'] as const;
@@ -210,7 +211,9 @@ describe('startProcessingWorker', () => {
       .attach('files', Buffer.from(log.text), log.name)
       .expect(201);
     const logId: string = uploaded.body.results[0].log.id;
-    // As pg-boss leaves it after the last expiry: the run still "processing", its job gone.
+    // As pg-boss leaves it after the last expiry: the run still "processing", its job gone. The job the
+    // upload queued is removed too, so no worker can pick it up and race the check below.
+    await database.db.raw(`delete from pgboss.job where name = ?`, [PROCESSING_QUEUE]);
     await database
       .db('processing_runs')
       .where({ log_id: logId })
