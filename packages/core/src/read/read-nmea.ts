@@ -751,8 +751,13 @@ function parseNmeaCoordinateIn(
   degDigits: number,
 ): number | undefined {
   const lat = degDigits === 2;
-  let dot = src.indexOf('.', start);
-  if (dot >= end) dot = -1;
+  let dot = -1;
+  for (let i = start; i < end; i++) {
+    if (src.charCodeAt(i) === 46) {
+      dot = i;
+      break;
+    }
+  }
   const intLength = dot < 0 ? end - start : dot - start;
   if (intLength !== degDigits + 2 || end === dot + 1) return undefined;
   const south = hemisphere === 83; // S
