@@ -3,6 +3,7 @@
  * nanometres: the one place Leadline measures distances and azimuths between positions.
  */
 import geographiclib from 'geographiclib-geodesic';
+import { normaliseAzimuthDeg, normaliseLongitudeDeg } from '../model/units.js';
 
 /** The WGS 84 geodesic solver (a = 6378137 m, 1/f = 298.257223563). */
 export const WGS84_GEODESIC = geographiclib.Geodesic.WGS84;
@@ -30,16 +31,6 @@ export interface DirectGeodesicResult {
   azimuthDeg: number;
 }
 
-function wrapAzimuth(deg: number): number {
-  const wrapped = deg % 360;
-  return wrapped < 0 ? wrapped + 360 : wrapped + 0;
-}
-
-function wrapLongitude(deg: number): number {
-  const wrapped = (((deg + 180) % 360) + 360) % 360;
-  return wrapped - 180;
-}
-
 /**
  * Solves the inverse geodesic problem on WGS 84: distance (m) and azimuths (deg) from point 1 to
  * point 2. Coincident points give distance 0 and azimuths as GeographicLib defines them; any `NaN`
@@ -54,8 +45,8 @@ export function inverseGeodesic(
   const r = WGS84_GEODESIC.Inverse(lat1Deg, lon1Deg, lat2Deg, lon2Deg, INVERSE_MASK);
   return {
     distanceM: r.s12 ?? Number.NaN,
-    azimuth1Deg: wrapAzimuth(r.azi1 ?? Number.NaN),
-    azimuth2Deg: wrapAzimuth(r.azi2 ?? Number.NaN),
+    azimuth1Deg: normaliseAzimuthDeg(r.azi1 ?? Number.NaN),
+    azimuth2Deg: normaliseAzimuthDeg(r.azi2 ?? Number.NaN),
   };
 }
 
@@ -78,8 +69,8 @@ export function directGeodesic(
   const r = WGS84_GEODESIC.Direct(latDeg, lonDeg, azimuthDeg, distanceM, DIRECT_MASK);
   return {
     latDeg: r.lat2 ?? Number.NaN,
-    lonDeg: wrapLongitude(r.lon2 ?? Number.NaN),
-    azimuthDeg: wrapAzimuth(r.azi2 ?? Number.NaN),
+    lonDeg: normaliseLongitudeDeg(r.lon2 ?? Number.NaN),
+    azimuthDeg: normaliseAzimuthDeg(r.azi2 ?? Number.NaN),
   };
 }
 

@@ -60,6 +60,11 @@ describe('normaliseLongitudeDeg', () => {
     expect(normaliseLongitudeDeg(180)).toBe(-180);
     expect(normaliseLongitudeDeg(12.5)).toBe(12.5);
   });
+
+  it('returns a longitude already in range untouched, without rounding noise', () => {
+    expect(normaliseLongitudeDeg(5.21)).toBe(5.21);
+    expect(normaliseLongitudeDeg(-179.999999)).toBe(-179.999999);
+  });
 });
 
 describe('parseLengthUnit', () => {

@@ -66,8 +66,9 @@ export function normaliseAzimuthDeg(deg: number): number {
   return wrapped < 0 ? wrapped + 360 : wrapped + 0; // `+ 0` turns -0 into 0
 }
 
-/** Wraps a longitude or signed angle in degrees into [-180, 180). */
+/** Wraps a longitude or signed angle in degrees into [-180, 180); a value already inside comes back untouched (no rounding noise). */
 export function normaliseLongitudeDeg(deg: number): number {
+  if (deg >= -180 && deg < 180) return deg;
   const wrapped = (((deg + 180) % 360) + 360) % 360;
   return wrapped - 180;
 }

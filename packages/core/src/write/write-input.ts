@@ -1,5 +1,6 @@
 import type { Track, Waypoint } from '../model/track.js';
 import { TrackBuilder } from '../model/track-builder.js';
+import { normaliseLongitudeDeg } from '../model/units.js';
 
 /** What every writer takes: the tracks (vehicle and surface unit) and the waypoints (targets). */
 export interface WriteInput {
@@ -8,10 +9,7 @@ export interface WriteInput {
 }
 
 /** Wraps a longitude into [-180, 180) as GPX and GeoJSON readers expect (+180 becomes −180). */
-export function wrapLongitude(lonDeg: number): number {
-  if (lonDeg >= -180 && lonDeg < 180) return lonDeg; // untouched: no rounding noise
-  return ((((lonDeg + 180) % 360) + 360) % 360) - 180;
-}
+export const wrapLongitude = normaliseLongitudeDeg;
 
 /**
  * `[start, end)` fix index ranges of a track's segments, in order: the track's own segments, each
