@@ -4,7 +4,6 @@ import {
   type AuditProfile,
   type AuditSetup,
   buildBatchReport,
-  InvalidArgumentError as CoreInvalidArgumentError,
   type DiveReport,
   formatBatchReportHtml,
   formatBatchReportMarkdown,
@@ -24,7 +23,6 @@ import { buildReadOptions } from '../support/build-read-options.js';
 import {
   addCommonOptions,
   type CommonOptions,
-  ConfigFileError,
   type InputFile,
   loadConfig,
   OutputFolder,
@@ -36,7 +34,7 @@ import {
   type WrittenOutput,
 } from '../support/index.js';
 import { createTaskPool } from '../support/task-pool.js';
-import { UsageProblem } from '../support/usage-problem.js';
+import { isUsageError, UsageProblem } from '../support/usage-problem.js';
 import { type AuditTaskPayload, type AuditTaskResult, REPORT_FORMATS, type ReportFormat } from './audit-task.js';
 import type { RegisterCommand } from './index.js';
 
@@ -184,11 +182,7 @@ export async function runAudit(
     if (options.report !== undefined && options.out === undefined)
       throw new UsageProblem('--report writes files: give --out <dir> as well');
   } catch (error) {
-    if (
-      error instanceof UsageProblem ||
-      error instanceof CoreInvalidArgumentError ||
-      error instanceof ConfigFileError
-    ) {
+    if (isUsageError(error)) {
       io.stderr(`leadline audit: ${error.message}\n`);
       return EXIT_USAGE;
     }

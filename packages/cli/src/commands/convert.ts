@@ -2,7 +2,6 @@ import { readFile } from 'node:fs/promises';
 import { basename, resolve as resolvePath } from 'node:path';
 import {
   type AuditProfile,
-  InvalidArgumentError as CoreInvalidArgumentError,
   parseUserProfiles,
   type ReadOptions,
   resolveAuditProfile,
@@ -15,7 +14,6 @@ import { buildReadOptions } from '../support/build-read-options.js';
 import {
   addCommonOptions,
   type CommonOptions,
-  ConfigFileError,
   type InputFile,
   loadConfig,
   OutputFolder,
@@ -28,7 +26,7 @@ import {
 } from '../support/index.js';
 import { loadResolveSetup } from '../support/load-resolve-setup.js';
 import { createTaskPool } from '../support/task-pool.js';
-import { UsageProblem } from '../support/usage-problem.js';
+import { isUsageError, UsageProblem } from '../support/usage-problem.js';
 import {
   CONVERT_FORMATS,
   type ConvertCrsReport,
@@ -172,11 +170,7 @@ export async function runConvert(
     } else if (options.profile !== undefined) throw new UsageProblem('--profile applies with --clean only');
     if (options.setup !== undefined) setup = await loadResolveSetup(options.setup, config.setups ?? {}, cwd);
   } catch (error) {
-    if (
-      error instanceof UsageProblem ||
-      error instanceof CoreInvalidArgumentError ||
-      error instanceof ConfigFileError
-    ) {
+    if (isUsageError(error)) {
       io.stderr(`leadline convert: ${error.message}\n`);
       return EXIT_USAGE;
     }

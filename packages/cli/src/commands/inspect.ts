@@ -1,11 +1,10 @@
-import { InvalidArgumentError as CoreInvalidArgumentError, type ReadOptions } from '@leadline/core';
+import type { ReadOptions } from '@leadline/core';
 import { EXIT_IO, EXIT_OK, EXIT_USAGE } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
 import { buildReadOptions } from '../support/build-read-options.js';
 import {
   addCommonOptions,
   type CommonOptions,
-  ConfigFileError,
   type InputFile,
   loadConfig,
   printJson,
@@ -15,7 +14,7 @@ import {
   startProgress,
 } from '../support/index.js';
 import { createTaskPool } from '../support/task-pool.js';
-import { UsageProblem } from '../support/usage-problem.js';
+import { isUsageError } from '../support/usage-problem.js';
 import type { RegisterCommand } from './index.js';
 import type { InspectFileReport, InspectTaskPayload } from './inspect-task.js';
 
@@ -77,11 +76,7 @@ export async function runInspect(
     const { config } = await loadConfig(options.config, cwd);
     readOptions = buildReadOptions(options, config);
   } catch (error) {
-    if (
-      error instanceof CoreInvalidArgumentError ||
-      error instanceof ConfigFileError ||
-      error instanceof UsageProblem
-    ) {
+    if (isUsageError(error)) {
       io.stderr(`leadline inspect: ${error.message}\n`);
       return EXIT_USAGE;
     }

@@ -1,7 +1,6 @@
 import { resolve as resolvePath } from 'node:path';
 import {
   type AuditProfile,
-  InvalidArgumentError as CoreInvalidArgumentError,
   parseUserProfiles,
   type ReadOptions,
   type ResolveReport,
@@ -16,7 +15,6 @@ import { buildReadOptions } from '../support/build-read-options.js';
 import {
   addCommonOptions,
   type CommonOptions,
-  ConfigFileError,
   type InputFile,
   loadConfig,
   OutputFolder,
@@ -29,7 +27,7 @@ import {
 } from '../support/index.js';
 import { loadResolveSetup } from '../support/load-resolve-setup.js';
 import { createTaskPool } from '../support/task-pool.js';
-import { UsageProblem } from '../support/usage-problem.js';
+import { isUsageError, UsageProblem } from '../support/usage-problem.js';
 import type { RegisterCommand } from './index.js';
 import {
   RESOLVE_FORMATS,
@@ -138,11 +136,7 @@ export async function runResolve(
     if (options.crs !== undefined && options.to !== 'csv')
       throw new UsageProblem('--crs applies to --to csv only (GPX, GeoJSON and KML are always WGS 84)');
   } catch (error) {
-    if (
-      error instanceof UsageProblem ||
-      error instanceof CoreInvalidArgumentError ||
-      error instanceof ConfigFileError
-    ) {
+    if (isUsageError(error)) {
       io.stderr(`leadline resolve: ${error.message}\n`);
       return EXIT_USAGE;
     }

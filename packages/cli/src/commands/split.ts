@@ -1,11 +1,5 @@
 import { resolve as resolvePath } from 'node:path';
-import {
-  InvalidArgumentError as CoreInvalidArgumentError,
-  parseUserProfiles,
-  type ReadOptions,
-  resolveAuditProfile,
-  type SplitOptions,
-} from '@leadline/core';
+import { parseUserProfiles, type ReadOptions, resolveAuditProfile, type SplitOptions } from '@leadline/core';
 import { InvalidArgumentError, Option } from 'commander';
 import { EXIT_IO, EXIT_OK, EXIT_USAGE } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
@@ -13,7 +7,6 @@ import { buildReadOptions } from '../support/build-read-options.js';
 import {
   addCommonOptions,
   type CommonOptions,
-  ConfigFileError,
   type InputFile,
   loadConfig,
   OutputFolder,
@@ -25,7 +18,7 @@ import {
   type WrittenOutput,
 } from '../support/index.js';
 import { createTaskPool } from '../support/task-pool.js';
-import { UsageProblem } from '../support/usage-problem.js';
+import { isUsageError } from '../support/usage-problem.js';
 import type { RegisterCommand } from './index.js';
 import {
   SPLIT_FORMATS,
@@ -126,11 +119,7 @@ export async function runSplit(
       surfaceIntervalS: options.surfaceTime ?? profile.surfaceIntervalS,
     };
   } catch (error) {
-    if (
-      error instanceof CoreInvalidArgumentError ||
-      error instanceof ConfigFileError ||
-      error instanceof UsageProblem
-    ) {
+    if (isUsageError(error)) {
       io.stderr(`leadline split: ${error.message}\n`);
       return EXIT_USAGE;
     }
