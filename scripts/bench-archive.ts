@@ -1,7 +1,9 @@
 // The archive's figures (issue 9): a 7,200-fix dive uploaded, processed in the background and
 // queryable; its stored fixes read back; its GeoJSON track served over loopback HTTP.
 // Runs against DATABASE_URL when set, else against a throwaway PostgreSQL it starts and stops.
+import { spawn } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
+import { createRequire } from 'node:module';
 import type { AddressInfo } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -29,6 +31,74 @@ const POSTGRES_HELPERS = './lib/postgres.mjs';
 function percentile(values: number[], q: number): number {
   const sorted = [...values].sort((a, b) => a - b);
   return sorted[Math.min(sorted.length - 1, Math.ceil(q * sorted.length) - 1)] ?? Number.NaN;
+}
+
+/** Polls a log's runs every 5 ms until its latest is done; throws when it failed. */
+async function waitForRun(
+  runsUrl: string,
+  headers: Record<string, string>,
+): Promise<{ createdAt: string; startedAt: string; finishedAt: string }> {
+  for (;;) {
+    const runs = (await (await fetch(runsUrl, { headers })).json()) as {
+      runs: Array<{ status: string; createdAt: string; startedAt: string; finishedAt: string }>;
+    };
+    const run = runs.runs[0];
+    if (run?.status === 'failed') throw new Error('processing failed');
+    if (run?.status === 'done') return run;
+    await new Promise((resolve) => setTimeout(resolve, 5));
+  }
+}
+
+/** What autocannon measured. */
+interface LoadFigures {
+  requestsPerS: number;
+  p50Ms: number;
+  p99Ms: number;
+  requests: number;
+  failures: number;
+  bytesPerRequest: number;
+}
+
+/**
+ * GETs `url` with autocannon in a child process (its own CPU, not the server's event loop) and reads
+ * its JSON summary. Loopback only; the run ends by itself after `seconds`.
+ */
+async function runAutocannon(
+  url: string,
+  headers: Record<string, string>,
+  options: { connections: number; seconds: number },
+): Promise<LoadFigures> {
+  const cli = createRequire(import.meta.url).resolve('autocannon/autocannon.js');
+  const args = [cli, '--json', '-c', String(options.connections), '-d', String(options.seconds)];
+  for (const [name, value] of Object.entries(headers)) args.push('-H', `${name}=${value}`);
+  args.push(url);
+  const child = spawn(process.execPath, args, { stdio: ['ignore', 'pipe', 'pipe'] });
+  let out = '';
+  let err = '';
+  child.stdout.on('data', (chunk: Buffer) => {
+    out += chunk.toString();
+  });
+  child.stderr.on('data', (chunk: Buffer) => {
+    err += chunk.toString();
+  });
+  const code = await new Promise<number | null>((resolve) => child.on('close', resolve));
+  if (code !== 0) throw new Error(`autocannon exited ${code}: ${err.trim()}`);
+  const result = JSON.parse(out) as {
+    requests: { average: number; total: number };
+    latency: { p50: number; p99: number };
+    throughput: { total: number };
+    errors: number;
+    timeouts: number;
+    non2xx: number;
+  };
+  return {
+    requestsPerS: result.requests.average,
+    p50Ms: result.latency.p50,
+    p99Ms: result.latency.p99,
+    requests: result.requests.total,
+    failures: result.errors + result.timeouts + result.non2xx,
+    bytesPerRequest: result.requests.total === 0 ? 0 : result.throughput.total / result.requests.total,
+  };
 }
 
 /** Runs the archive benchmark and returns one line of figures. */
@@ -78,7 +148,7 @@ export async function runArchiveBench(): Promise<string> {
     const headers = { authorization: `Bearer ${token.body.token}` };
 
     // 120-minute dives at 1 Hz: 7,200 fixes each, distinct bytes per seed (simulated before timing).
-    const uploads = 12;
+    const uploads = 20;
     const logs = planSeason({ seed: 7207, dives: uploads, diveMinutes: 120, dialect: 'csv' }).map((planned) => {
       const [file] = simulatePlannedDive(planned).files;
       if (file === undefined) throw new Error('no file');
@@ -99,25 +169,15 @@ export async function runArchiveBench(): Promise<string> {
       };
       const logId = uploaded.results[0]?.log.id ?? '';
       uploadMs.push(performance.now() - t0);
-      for (;;) {
-        const runs = (await (await fetch(`${base}/logs/${logId}/runs`, { headers })).json()) as {
-          runs: Array<{ status: string; createdAt: string; startedAt: string; finishedAt: string }>;
-        };
-        const run = runs.runs[0];
-        if (run?.status === 'failed') throw new Error('processing failed');
-        if (run?.status === 'done') {
-          const list = (await (await fetch(`${base}/dives?logId=${logId}`, { headers })).json()) as {
-            dives: Array<{ id: string; fixCount: number }>;
-          };
-          endToEnd.push(performance.now() - t0);
-          workMs.push(Date.parse(run.finishedAt) - Date.parse(run.startedAt));
-          waitMs.push(Date.parse(run.startedAt) - Date.parse(run.createdAt));
-          diveId = list.dives[0]?.id ?? '';
-          fixCount = list.dives[0]?.fixCount ?? 0;
-          break;
-        }
-        await new Promise((resolve) => setTimeout(resolve, 5));
-      }
+      const run = await waitForRun(`${base}/logs/${logId}/runs`, headers);
+      const list = (await (await fetch(`${base}/dives?logId=${logId}`, { headers })).json()) as {
+        dives: Array<{ id: string; fixCount: number }>;
+      };
+      endToEnd.push(performance.now() - t0);
+      workMs.push(Date.parse(run.finishedAt) - Date.parse(run.startedAt));
+      waitMs.push(Date.parse(run.startedAt) - Date.parse(run.createdAt));
+      diveId = list.dives[0]?.id ?? '';
+      fixCount = list.dives[0]?.fixCount ?? 0;
     }
 
     // One dive's fixes from the database: one indexed read of one row.
@@ -138,20 +198,27 @@ export async function runArchiveBench(): Promise<string> {
       if (i > 0) sequential.push(performance.now() - t0);
     }
 
-    // GET of its GeoJSON track: 10 clients on loopback for 5 s.
-    const latencies: number[] = [];
-    let bytes = 0;
-    const endAt = performance.now() + 5000;
-    await Promise.all(
-      Array.from({ length: 10 }, async () => {
-        while (performance.now() < endAt) {
-          const t0 = performance.now();
-          const response = await fetch(trackUrl, { headers });
-          bytes = (await response.arrayBuffer()).byteLength;
-          latencies.push(performance.now() - t0);
-        }
-      }),
-    );
+    // GET of its GeoJSON track: autocannon in its own process (the load must not share the server's
+    // event loop), 10 connections on loopback for 10 s.
+    const steady = await runAutocannon(trackUrl, headers, { connections: 10, seconds: 10 });
+
+    // The same while the worker processes uploads: does a busy queue stall the API?
+    const busyLogs = planSeason({ seed: 7208, dives: 4, diveMinutes: 120, dialect: 'csv' }).map((planned) => {
+      const [file] = simulatePlannedDive(planned).files;
+      if (file === undefined) throw new Error('no file');
+      return { name: file.name.split('/').pop() ?? file.name, text: file.text };
+    });
+    const busyIds: string[] = [];
+    for (const log of busyLogs) {
+      const form = new FormData();
+      form.append('files', new Blob([log.text]), log.name);
+      const uploaded = (await (await fetch(`${base}/logs`, { method: 'POST', body: form, headers })).json()) as {
+        results: Array<{ log: { id: string } }>;
+      };
+      busyIds.push(uploaded.results[0]?.log.id ?? '');
+    }
+    const busy = await runAutocannon(trackUrl, headers, { connections: 10, seconds: 5 });
+    for (const logId of busyIds) await waitForRun(`${base}/logs/${logId}/runs`, headers);
     server.close();
     await processing.stop();
     await testApp.close();
@@ -163,7 +230,8 @@ export async function runArchiveBench(): Promise<string> {
       `processing run alone (read, split, audit, summarise, store): p50 ${f(percentile(workMs, 0.5))} ms, p95 ${f(percentile(workMs, 0.95))} ms`,
       `stored fixes read back: p50 ${percentile(readMs, 0.5).toFixed(1)} ms`,
       `GET GeoJSON track one at a time: p50 ${f(percentile(sequential, 0.5))} ms`,
-      `GET GeoJSON track (${(bytes / 1024).toFixed(0)} KiB), 10 clients 5 s: ${f(latencies.length / 5)} req/s, p50 ${f(percentile(latencies, 0.5))} ms, p99 ${f(percentile(latencies, 0.99))} ms`,
+      `GET GeoJSON track (${(steady.bytesPerRequest / 1024).toFixed(0)} KiB), autocannon 10 connections 10 s: ${f(steady.requestsPerS)} req/s, p50 ${f(steady.p50Ms)} ms, p99 ${f(steady.p99Ms)} ms (${steady.requests} requests, ${steady.failures} failed)`,
+      `the same while 4 uploads are processed, 5 s: ${f(busy.requestsPerS)} req/s, p50 ${f(busy.p50Ms)} ms, p99 ${f(busy.p99Ms)} ms (${busy.failures} failed)`,
     ].join('; ');
   } finally {
     await db.destroy();
