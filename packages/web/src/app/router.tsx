@@ -8,6 +8,16 @@ const LandingPage = lazy(() => import('./routes/landing').then((m) => ({ default
 const SignInPage = lazy(() => import('./routes/sign-in').then((m) => ({ default: m.SignInPage })));
 const DivePage = lazy(() => import('./routes/dive').then((m) => ({ default: m.DivePage })));
 const PreviewDivePage = lazy(() => import('./routes/preview-dive').then((m) => ({ default: m.PreviewDivePage })));
+const ForgotPasswordPage = lazy(() =>
+  import('./routes/forgot-password').then((m) => ({ default: m.ForgotPasswordPage })),
+);
+const ResetPasswordPage = lazy(() => import('./routes/reset-password').then((m) => ({ default: m.ResetPasswordPage })));
+const AcceptInvitationPage = lazy(() =>
+  import('./routes/accept-invitation').then((m) => ({ default: m.AcceptInvitationPage })),
+);
+const TokensPage = lazy(() => import('./routes/tokens').then((m) => ({ default: m.TokensPage })));
+const MembersPage = lazy(() => import('./routes/members').then((m) => ({ default: m.MembersPage })));
+const DevMailboxPage = lazy(() => import('./routes/dev-mailbox').then((m) => ({ default: m.DevMailboxPage })));
 const NotFoundPage = lazy(() => import('./routes/not-found').then((m) => ({ default: m.NotFoundPage })));
 
 /** The site's route table. */
@@ -19,7 +29,18 @@ export function createRouter() {
         { path: '/', element: <LandingPage /> },
         { path: '/sign-in', element: <SignInPage /> },
         { path: '/preview/dive', element: <PreviewDivePage /> },
-        { element: <RequireSignIn />, children: [{ path: '/dives/:diveId', element: <DivePage /> }] },
+        { path: '/forgot-password', element: <ForgotPasswordPage /> },
+        { path: '/reset-password', element: <ResetPasswordPage /> },
+        { path: '/accept-invitation', element: <AcceptInvitationPage /> },
+        {
+          element: <RequireSignIn />,
+          children: [
+            { path: '/dives/:diveId', element: <DivePage /> },
+            { path: '/tokens', element: <TokensPage /> },
+            { path: '/members', element: <MembersPage /> },
+            { path: '/dev/mailbox', element: <DevMailboxPage /> },
+          ],
+        },
         { path: '*', element: <NotFoundPage /> },
       ],
     },

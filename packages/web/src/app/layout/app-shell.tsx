@@ -4,12 +4,19 @@ import { buttonStyles } from '../../components/ui/button-styles';
 import { LoadingState } from '../../components/ui/query-states';
 import { useMe } from '../../features/auth/api/get-me';
 import { useSignOut } from '../../features/auth/api/sign-out';
+import { OrganisationSwitcher } from '../../features/organisations/components/organisation-switcher';
+import { useCurrentOrganisation } from '../../features/organisations/use-current-organisation';
 import { cn } from '../../lib/cn';
 
-const NAV = [
-  { to: '/', label: 'Home', end: true },
-  { to: '/preview/dive', label: 'Dive preview', end: false },
-] as const;
+/** Who sees an entry: everyone, people signed in, or admins of the current organisation. */
+type NavAccess = 'all' | 'signed-in' | 'admin';
+
+const NAV: readonly { to: string; label: string; end: boolean; access: NavAccess }[] = [
+  { to: '/', label: 'Home', end: true, access: 'all' },
+  { to: '/preview/dive', label: 'Dive preview', end: false, access: 'all' },
+  { to: '/tokens', label: 'API tokens', end: false, access: 'signed-in' },
+  { to: '/members', label: 'Members', end: false, access: 'admin' },
+];
 
 function navClass({ isActive }: { isActive: boolean }): string {
   return cn(
@@ -24,13 +31,10 @@ function AccountArea() {
   const navigate = useNavigate();
   if (me.isPending) return <span className="text-sm text-foam/80">Checking sign-in…</span>;
   if (me.data) {
-    const organisation = me.data.memberships[0]?.organisationName;
     return (
-      <div className="flex items-center gap-3 text-sm">
-        <span>
-          {me.data.user.displayName}
-          {organisation ? <span className="text-foam/80"> · {organisation}</span> : null}
-        </span>
+      <div className="flex flex-wrap items-center gap-3 text-sm">
+        <span>{me.data.user.displayName}</span>
+        <OrganisationSwitcher />
         <button
           type="button"
           className={buttonStyles('quiet', 'text-foam hover:bg-abyss-soft focus-visible:outline-sand')}
@@ -45,6 +49,30 @@ function AccountArea() {
     <NavLink to="/sign-in" className={navClass}>
       Sign in
     </NavLink>
+  );
+}
+
+function MainNav() {
+  const me = useMe();
+  const { membership } = useCurrentOrganisation();
+  const visible = NAV.filter(
+    (item) =>
+      item.access === 'all' ||
+      (item.access === 'signed-in' && me.data != null) ||
+      (item.access === 'admin' && membership?.role === 'admin'),
+  );
+  return (
+    <nav aria-label="Main" className="mr-auto">
+      <ul className="flex flex-wrap gap-1">
+        {visible.map((item) => (
+          <li key={item.to}>
+            <NavLink to={item.to} end={item.end} className={navClass}>
+              {item.label}
+            </NavLink>
+          </li>
+        ))}
+      </ul>
+    </nav>
   );
 }
 
@@ -67,17 +95,7 @@ export function AppShell() {
             <img src="/leadline.svg" alt="" className="size-7" />
             Leadline
           </Link>
-          <nav aria-label="Main" className="mr-auto">
-            <ul className="flex flex-wrap gap-1">
-              {NAV.map((item) => (
-                <li key={item.to}>
-                  <NavLink to={item.to} end={item.end} className={navClass}>
-                    {item.label}
-                  </NavLink>
-                </li>
-              ))}
-            </ul>
-          </nav>
+          <MainNav />
           <AccountArea />
         </div>
       </header>

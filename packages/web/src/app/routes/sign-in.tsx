@@ -1,4 +1,4 @@
-import { useNavigate, useSearchParams } from 'react-router-dom';
+import { Link, useNavigate, useSearchParams } from 'react-router-dom';
 import { SignInForm } from '../../features/auth/components/sign-in-form';
 
 /** Only same-site paths are followed after signing in. */
@@ -17,6 +17,11 @@ export function SignInPage() {
         <p className="mt-1 text-abyss-soft">Use the e-mail address your invitation was sent to.</p>
       </div>
       <SignInForm onSignedIn={() => navigate(safeNext(params.get('next')), { replace: true })} />
+      <p className="text-sm">
+        <Link to="/forgot-password" className="font-medium text-kelp underline underline-offset-2">
+          Forgot password?
+        </Link>
+      </p>
     </div>
   );
 }

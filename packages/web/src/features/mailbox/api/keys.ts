@@ -1,0 +1,5 @@
+/** Query keys of the development-mailbox feature. */
+export const mailboxKeys = {
+  all: ['mailbox'] as const,
+  messages: () => [...mailboxKeys.all, 'messages'] as const,
+};

@@ -1,0 +1,137 @@
+import { useState } from 'react';
+import { buttonStyles } from '../../../components/ui/button-styles';
+import { fieldStyles } from '../../../components/ui/field-styles';
+import { FormFailure } from '../../../components/ui/form-failure';
+import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/query-states';
+import { formatDateTime } from '../../../lib/format-date-time';
+import { useChangeRole } from '../api/change-role';
+import { type Member, ROLES, type Role, useMembers } from '../api/list-members';
+import { useRemoveMember } from '../api/remove-member';
+
+function RoleCell({ organisationId, member }: { organisationId: string; member: Member }) {
+  const [role, setRole] = useState<Role>(member.role);
+  const change = useChangeRole();
+  return (
+    <div className="flex flex-wrap items-center gap-2">
+      <label className="sr-only" htmlFor={`role-${member.userId}`}>
+        Role of {member.displayName}
+      </label>
+      <select
+        id={`role-${member.userId}`}
+        value={role}
+        onChange={(event) => setRole(event.target.value as Role)}
+        className={fieldStyles(false, 'min-h-9 w-auto')}
+      >
+        {ROLES.map((r) => (
+          <option key={r} value={r}>
+            {r}
+          </option>
+        ))}
+      </select>
+      {role !== member.role ? (
+        <>
+          <button
+            type="button"
+            className={buttonStyles('primary')}
+            disabled={change.isPending}
+            onClick={() => change.mutate({ organisationId, userId: member.userId, role })}
+          >
+            {change.isPending ? 'Saving…' : 'Save role'}
+          </button>
+          <button type="button" className={buttonStyles('quiet')} onClick={() => setRole(member.role)}>
+            Undo
+          </button>
+        </>
+      ) : null}
+      <FormFailure error={change.error} />
+    </div>
+  );
+}
+
+function RemoveCell({ organisationId, member }: { organisationId: string; member: Member }) {
+  const [confirming, setConfirming] = useState(false);
+  const remove = useRemoveMember();
+  if (!confirming)
+    return (
+      <button
+        type="button"
+        className={buttonStyles('secondary')}
+        aria-label={`Remove ${member.displayName}`}
+        onClick={() => setConfirming(true)}
+      >
+        Remove
+      </button>
+    );
+  return (
+    <fieldset className="flex flex-wrap items-center gap-2">
+      <legend className="sr-only">Confirm removing {member.displayName}</legend>
+      <button
+        type="button"
+        className={buttonStyles('primary', 'bg-[#9c211a] hover:bg-[#7d1a14]')}
+        disabled={remove.isPending}
+        onClick={() => remove.mutate({ organisationId, userId: member.userId })}
+      >
+        {remove.isPending ? 'Removing…' : `Yes, remove ${member.displayName}`}
+      </button>
+      <button type="button" className={buttonStyles('quiet')} onClick={() => setConfirming(false)}>
+        Keep
+      </button>
+      <FormFailure error={remove.error} />
+    </fieldset>
+  );
+}
+
+/** The organisation's members with their roles, a way to change a role and to remove someone. */
+export function MemberList({ organisationId, currentUserId }: { organisationId: string; currentUserId: string }) {
+  const members = useMembers(organisationId);
+  if (members.isPending) return <LoadingState label="Loading the members…" />;
+  if (members.isError)
+    return (
+      <ErrorState title="The members could not be loaded" error={members.error} onRetry={() => members.refetch()} />
+    );
+  if (members.data.length === 0) return <EmptyState title="No members" />;
+  return (
+    <div className="overflow-x-auto rounded-lg border border-abyss/10 bg-white">
+      <table className="w-full text-left text-sm">
+        <caption className="sr-only">Members</caption>
+        <thead className="bg-foam">
+          <tr>
+            <th scope="col" className="px-3 py-2 font-semibold">
+              Name
+            </th>
+            <th scope="col" className="px-3 py-2 font-semibold">
+              E-mail
+            </th>
+            <th scope="col" className="px-3 py-2 font-semibold">
+              Role
+            </th>
+            <th scope="col" className="px-3 py-2 font-semibold">
+              Joined
+            </th>
+            <th scope="col" className="px-3 py-2 font-semibold">
+              <span className="sr-only">Actions</span>
+            </th>
+          </tr>
+        </thead>
+        <tbody>
+          {members.data.map((member) => (
+            <tr key={member.userId} className="border-t border-abyss/10 align-top">
+              <th scope="row" className="px-3 py-2 font-medium">
+                {member.displayName}
+                {member.userId === currentUserId ? <span className="font-normal text-abyss-soft"> (you)</span> : null}
+              </th>
+              <td className="px-3 py-2">{member.email}</td>
+              <td className="px-3 py-2">
+                <RoleCell key={member.role} organisationId={organisationId} member={member} />
+              </td>
+              <td className="px-3 py-2">{formatDateTime(member.joinedAt)}</td>
+              <td className="px-3 py-2">
+                <RemoveCell organisationId={organisationId} member={member} />
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
