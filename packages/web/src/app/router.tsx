@@ -18,6 +18,7 @@ const AcceptInvitationPage = lazy(() =>
 const TokensPage = lazy(() => import('./routes/tokens').then((m) => ({ default: m.TokensPage })));
 const MembersPage = lazy(() => import('./routes/members').then((m) => ({ default: m.MembersPage })));
 const DevMailboxPage = lazy(() => import('./routes/dev-mailbox').then((m) => ({ default: m.DevMailboxPage })));
+const UploadPage = lazy(() => import('./routes/upload').then((m) => ({ default: m.UploadPage })));
 const NotFoundPage = lazy(() => import('./routes/not-found').then((m) => ({ default: m.NotFoundPage })));
 
 /** The site's route table. */
@@ -36,6 +37,7 @@ export function createRouter() {
           element: <RequireSignIn />,
           children: [
             { path: '/dives/:diveId', element: <DivePage /> },
+            { path: '/upload', element: <UploadPage /> },
             { path: '/tokens', element: <TokensPage /> },
             { path: '/members', element: <MembersPage /> },
             { path: '/dev/mailbox', element: <DevMailboxPage /> },

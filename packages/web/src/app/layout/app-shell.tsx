@@ -8,12 +8,13 @@ import { OrganisationSwitcher } from '../../features/organisations/components/or
 import { useCurrentOrganisation } from '../../features/organisations/use-current-organisation';
 import { cn } from '../../lib/cn';
 
-/** Who sees an entry: everyone, people signed in, or admins of the current organisation. */
-type NavAccess = 'all' | 'signed-in' | 'admin';
+/** Who sees an entry: everyone, people signed in, editors and admins, or admins of the current organisation. */
+type NavAccess = 'all' | 'signed-in' | 'editor' | 'admin';
 
 const NAV: readonly { to: string; label: string; end: boolean; access: NavAccess }[] = [
   { to: '/', label: 'Home', end: true, access: 'all' },
   { to: '/preview/dive', label: 'Dive preview', end: false, access: 'all' },
+  { to: '/upload', label: 'Upload', end: false, access: 'editor' },
   { to: '/tokens', label: 'API tokens', end: false, access: 'signed-in' },
   { to: '/members', label: 'Members', end: false, access: 'admin' },
 ];
@@ -59,6 +60,7 @@ function MainNav() {
     (item) =>
       item.access === 'all' ||
       (item.access === 'signed-in' && me.data != null) ||
+      (item.access === 'editor' && (membership?.role === 'editor' || membership?.role === 'admin')) ||
       (item.access === 'admin' && membership?.role === 'admin'),
   );
   return (
