@@ -1,7 +1,6 @@
 import { readFile } from 'node:fs/promises';
 import { relative, resolve as resolvePath } from 'node:path';
 import {
-  type AuditProfile,
   type AuditSetup,
   buildBatchReport,
   type DiveReport,
@@ -10,7 +9,6 @@ import {
   formatReportJson,
   parseAuditSetup,
   parseUserProfiles,
-  type ReadOptions,
   type ReportPlot,
   resolveAuditProfile,
   type Severity,
@@ -20,21 +18,9 @@ import { InvalidArgumentError, Option } from 'commander';
 import { EXIT_FINDINGS, EXIT_IO, EXIT_OK, EXIT_USAGE } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
 import { buildReadOptions } from '../support/build-read-options.js';
-import {
-  addCommonOptions,
-  type CommonOptions,
-  type InputFile,
-  loadConfig,
-  OutputFolder,
-  printJson,
-  readInputBytes,
-  resolveInputs,
-  runPool,
-  startProgress,
-  type WrittenOutput,
-} from '../support/index.js';
-import { createTaskPool } from '../support/task-pool.js';
-import { isUsageError, UsageProblem } from '../support/usage-problem.js';
+import { addCommonOptions, type CommonOptions, loadConfig, type WrittenOutput } from '../support/index.js';
+import { NOT_PREPARED, prepareRun, printReports, runFiles } from '../support/run-files.js';
+import { UsageProblem } from '../support/usage-problem.js';
 import { type AuditTaskPayload, type AuditTaskResult, REPORT_FORMATS, type ReportFormat } from './audit-task.js';
 import type { RegisterCommand } from './index.js';
 
@@ -169,33 +155,21 @@ export async function runAudit(
   io: CliIo,
   cwd: string = process.cwd(),
 ): Promise<number> {
-  let profile: AuditProfile;
-  let setup: AuditSetup = {};
-  let readOptions: ReadOptions;
-  try {
+  const prepared = await prepareRun('audit', io, async () => {
     const { config } = await loadConfig(options.config, cwd);
-    readOptions = buildReadOptions(options, config);
+    const readOptions = buildReadOptions(options, config);
     const userProfiles = parseUserProfiles(config.profiles ?? {});
-    profile = resolveAuditProfile(options.profile ?? config.defaults?.profile ?? 'inspection-rov', userProfiles);
-    if (options.setup !== undefined) setup = await loadAuditSetup(options.setup, cwd);
+    const profile = resolveAuditProfile(options.profile ?? config.defaults?.profile ?? 'inspection-rov', userProfiles);
+    const setup: AuditSetup = options.setup === undefined ? {} : await loadAuditSetup(options.setup, cwd);
     if (options.gap !== undefined && !options.split) throw new UsageProblem('--gap applies with --split only');
     if (options.report !== undefined && options.out === undefined)
       throw new UsageProblem('--report writes files: give --out <dir> as well');
-  } catch (error) {
-    if (isUsageError(error)) {
-      io.stderr(`leadline audit: ${error.message}\n`);
-      return EXIT_USAGE;
-    }
-    throw error;
-  }
+    return { readOptions, profile, setup };
+  });
+  if (prepared === NOT_PREPARED) return EXIT_USAGE;
+  const { readOptions, profile, setup } = prepared;
 
-  const { inputs, problems } = await resolveInputs(args, cwd);
-  for (const problem of problems) io.stderr(`leadline audit: ${problem}\n`);
-  const out =
-    options.out === undefined
-      ? undefined
-      : new OutputFolder(resolvePath(cwd, options.out), { force: options.force, inputs });
-  const formats: ReportFormat[] = out === undefined ? [] : [options.report ?? 'json'];
+  const formats: ReportFormat[] = options.out === undefined ? [] : [options.report ?? 'json'];
   const split = options.split
     ? {
         splitGapS: options.gap ?? profile.splitGapS,
@@ -203,54 +177,39 @@ export async function runAudit(
         surfaceIntervalS: profile.surfaceIntervalS,
       }
     : undefined;
-  const progress = startProgress(io, inputs.length, options);
-  const pool = createTaskPool(Math.min(options.jobs, inputs.length));
   const hrefs: Array<Array<string | undefined>> = [];
   const plots: Array<ReportPlot[]> = [];
-  let results: Awaited<ReturnType<typeof runPool<InputFile, AuditFileReport>>>;
-  try {
-    results = await runPool(
-      inputs,
-      options.jobs,
-      async (input, index) => {
-        const bytes = await readInputBytes(input);
-        out?.recordInput(input, bytes);
-        const payload: AuditTaskPayload = {
-          displayName: input.displayName,
-          bytes,
-          readOptions,
-          profile,
-          setup,
-          formats,
-          ...(split === undefined ? {} : { split }),
-        };
-        const result = await pool.run<AuditTaskPayload, AuditTaskResult>(TASK_MODULE, 'auditFileTask', payload);
-        const outputs: WrittenOutput[] = [];
-        const links: Array<string | undefined> = result.dives.map(() => undefined);
-        if (out !== undefined && result.ok)
-          for (const file of result.files) {
-            const written = await out.write(out.pathFor(input, file.extension, file.suffix), file.text);
-            outputs.push(written);
-            links[file.dive] = written.path.split('\\').join('/');
-          }
-        hrefs[index] = links;
-        plots[index] = result.plots;
-        return toFileReport(input.displayName, result, outputs);
-      },
-      (done) => progress.update(done),
-    );
-  } finally {
-    progress.stop();
-    await pool.destroy();
-  }
-
-  let exitCode = problems.length > 0 ? EXIT_IO : EXIT_OK;
-  const reports: AuditFileReport[] = results.map((result, i) => {
-    if (result.ok) return result.value;
-    const input = inputs[i] as InputFile;
-    const message =
-      result.error instanceof Error ? result.error.message : `unexpected failure: ${String(result.error)}`;
-    return {
+  const run = await runFiles<AuditFileReport>({
+    verb: 'audit',
+    args,
+    options,
+    io,
+    cwd,
+    writesOutputs: true,
+    work: async (input, { bytes, pool, out, index }) => {
+      const payload: AuditTaskPayload = {
+        displayName: input.displayName,
+        bytes,
+        readOptions,
+        profile,
+        setup,
+        formats,
+        ...(split === undefined ? {} : { split }),
+      };
+      const result = await pool.run<AuditTaskPayload, AuditTaskResult>(TASK_MODULE, 'auditFileTask', payload);
+      const outputs: WrittenOutput[] = [];
+      const links: Array<string | undefined> = result.dives.map(() => undefined);
+      if (out !== undefined && result.ok)
+        for (const file of result.files) {
+          const written = await out.write(out.pathFor(input, file.extension, file.suffix), file.text);
+          outputs.push(written);
+          links[file.dive] = written.path.split('\\').join('/');
+        }
+      hrefs[index] = links;
+      plots[index] = result.plots;
+      return toFileReport(input.displayName, result, outputs);
+    },
+    failed: (input, message) => ({
       file: input.displayName,
       ok: false,
       error: message,
@@ -259,8 +218,12 @@ export async function runAudit(
       readRejections: [],
       dives: [],
       outputs: [],
-    };
+    }),
   });
+  if (typeof run === 'number') return run;
+  const { out, reports } = run;
+
+  let exitCode = run.exitCode;
   let reached = false;
   for (const report of reports) {
     if (!report.ok) {
@@ -299,9 +262,8 @@ export async function runAudit(
     });
   }
 
-  if (options.json) printJson(io, reports);
-  else if (!options.quiet)
-    io.stdout(formatTable(reports, out === undefined ? undefined : relative(cwd, out.root) || '.'));
+  const outRoot = out === undefined ? undefined : relative(cwd, out.root) || '.';
+  printReports(io, options, reports, (r) => formatTable(r, outRoot));
   return exitCode;
 }
 

@@ -1,32 +1,14 @@
 import { readFile } from 'node:fs/promises';
 import { basename, resolve as resolvePath } from 'node:path';
-import {
-  type AuditProfile,
-  parseUserProfiles,
-  type ReadOptions,
-  resolveAuditProfile,
-  resolveCrs,
-} from '@leadline/core';
+import { type AuditProfile, parseUserProfiles, resolveAuditProfile, resolveCrs } from '@leadline/core';
 import { InvalidArgumentError as CommanderInvalidArgumentError, Option } from 'commander';
-import { EXIT_IO, EXIT_OK, EXIT_USAGE } from '../exit-codes.js';
+import { EXIT_IO, EXIT_USAGE } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
 import { buildReadOptions } from '../support/build-read-options.js';
-import {
-  addCommonOptions,
-  type CommonOptions,
-  type InputFile,
-  loadConfig,
-  OutputFolder,
-  printJson,
-  readInputBytes,
-  resolveInputs,
-  runPool,
-  startProgress,
-  type WrittenOutput,
-} from '../support/index.js';
+import { addCommonOptions, type CommonOptions, loadConfig, type WrittenOutput } from '../support/index.js';
 import { loadResolveSetup } from '../support/load-resolve-setup.js';
-import { createTaskPool } from '../support/task-pool.js';
-import { isUsageError, UsageProblem } from '../support/usage-problem.js';
+import { NOT_PREPARED, prepareRun, printReports, runFiles } from '../support/run-files.js';
+import { UsageProblem } from '../support/usage-problem.js';
 import {
   CONVERT_FORMATS,
   type ConvertCrsReport,
@@ -142,17 +124,13 @@ export async function runConvert(
   io: CliIo,
   cwd: string = process.cwd(),
 ): Promise<number> {
-  let setup: unknown;
-  let cleanProfile: ConvertTaskPayload['cleanProfile'];
-  let crs = options.crs;
-  const grids: Record<string, Uint8Array> = {};
-  let readOptions: ReadOptions;
-  try {
+  const prepared = await prepareRun('convert', io, async () => {
     const { config } = await loadConfig(options.config, cwd);
-    readOptions = buildReadOptions(options, config);
-    crs ??= options.to === 'csv' ? config.defaults?.crs : undefined;
+    const readOptions = buildReadOptions(options, config);
+    const crs = options.crs ?? (options.to === 'csv' ? config.defaults?.crs : undefined);
     if (crs !== undefined && options.to !== 'csv')
       throw new UsageProblem('--crs applies to --to csv only (GPX, GeoJSON and KML are always WGS 84)');
+    const grids: Record<string, Uint8Array> = {};
     for (const file of options.grid ?? []) {
       try {
         grids[basename(file)] = new Uint8Array(await readFile(resolvePath(cwd, file)));
@@ -162,99 +140,72 @@ export async function runConvert(
     }
     // Checked here so a bad CRS is a usage error before any file is read.
     if (crs !== undefined && crs.toLowerCase() !== 'utm') resolveCrs(crs, { grids });
+    let cleanProfile: ConvertTaskPayload['cleanProfile'];
     if (options.clean) {
       const userProfiles: Record<string, AuditProfile> = parseUserProfiles(config.profiles);
       const name = options.profile ?? config.defaults?.profile ?? 'inspection-rov';
       resolveAuditProfile(name, userProfiles);
       cleanProfile = { name, userProfiles };
     } else if (options.profile !== undefined) throw new UsageProblem('--profile applies with --clean only');
-    if (options.setup !== undefined) setup = await loadResolveSetup(options.setup, config.setups ?? {}, cwd);
-  } catch (error) {
-    if (isUsageError(error)) {
-      io.stderr(`leadline convert: ${error.message}\n`);
-      return EXIT_USAGE;
-    }
-    throw error;
-  }
+    const setup: unknown =
+      options.setup === undefined ? undefined : await loadResolveSetup(options.setup, config.setups ?? {}, cwd);
+    return { readOptions, crs, grids, cleanProfile, setup };
+  });
+  if (prepared === NOT_PREPARED) return EXIT_USAGE;
+  const { readOptions, crs, grids, cleanProfile, setup } = prepared;
 
-  const { inputs, problems } = await resolveInputs(args, cwd);
-  for (const problem of problems) io.stderr(`leadline convert: ${problem}\n`);
-  if (options.out === undefined && inputs.length > 1) {
-    io.stderr(
-      `leadline convert: ${inputs.length} inputs need --out <dir> (standard output takes one converted file)\n`,
-    );
-    return EXIT_USAGE;
-  }
-  if (options.out === undefined && options.json) {
-    io.stderr(
-      'leadline convert: --json needs --out <dir> (without it the converted file itself goes to standard output)\n',
-    );
-    return EXIT_USAGE;
-  }
-  const out =
-    options.out === undefined
-      ? undefined
-      : new OutputFolder(resolvePath(cwd, options.out), { force: options.force, inputs });
-  const progress = startProgress(io, inputs.length, options);
   const nowMs = Date.now();
-  const pool = createTaskPool(Math.min(options.jobs, Math.max(1, inputs.length)));
   let stdoutText: string | undefined;
-  let results: Awaited<ReturnType<typeof runPool<InputFile, ConvertFileReport>>>;
-  try {
-    results = await runPool(
-      inputs,
-      options.jobs,
-      async (input) => {
-        const bytes = await readInputBytes(input);
-        out?.recordInput(input, bytes);
-        const payload: ConvertTaskPayload = {
-          displayName: input.displayName,
-          bytes,
-          readOptions,
-          to: options.to,
-          nowMs,
-          ...(options.gap === undefined ? {} : { gapMs: options.gap * 1000 }),
-          ...(Object.keys(grids).length === 0 ? {} : { grids }),
-          ...(crs === undefined ? {} : { crs }),
-          ...(cleanProfile === undefined ? {} : { cleanProfile }),
-          ...(setup === undefined ? {} : { setup }),
-        };
-        const result = await pool.run<ConvertTaskPayload, ConvertTaskResult>(TASK_MODULE, 'convertFileTask', payload);
-        const outputs: WrittenOutput[] = [];
-        if (result.ok) {
-          if (out !== undefined) outputs.push(await out.write(out.pathFor(input, result.extension), result.text));
-          else stdoutText = result.text;
-        }
-        return {
-          file: input.displayName,
-          ok: result.ok,
-          ...(result.error === undefined ? {} : { error: result.error }),
-          format: result.format ?? null,
-          to: options.to,
-          fixCount: result.fixCount,
-          waypointCount: result.waypointCount,
-          rejectionCount: result.rejections.length,
-          rejections: result.rejections,
-          crs: result.crs,
-          cleaned: result.cleaned,
-          resolvedTracks: result.resolvedTracks,
-          outputs,
-        };
-      },
-      (done) => progress.update(done),
-    );
-  } finally {
-    progress.stop();
-    await pool.destroy();
-  }
-
-  let exitCode = problems.length > 0 ? EXIT_IO : EXIT_OK;
-  const reports: ConvertFileReport[] = results.map((result, i) => {
-    const input = inputs[i] as InputFile;
-    if (result.ok) return result.value;
-    const message =
-      result.error instanceof Error ? result.error.message : `unexpected failure: ${String(result.error)}`;
-    return {
+  const run = await runFiles<ConvertFileReport>({
+    verb: 'convert',
+    args,
+    options,
+    io,
+    cwd,
+    writesOutputs: true,
+    checkInputs: (inputs) => {
+      if (options.out === undefined && inputs.length > 1)
+        return `${inputs.length} inputs need --out <dir> (standard output takes one converted file)`;
+      if (options.out === undefined && options.json)
+        return '--json needs --out <dir> (without it the converted file itself goes to standard output)';
+      return undefined;
+    },
+    work: async (input, { bytes, pool, out }) => {
+      const payload: ConvertTaskPayload = {
+        displayName: input.displayName,
+        bytes,
+        readOptions,
+        to: options.to,
+        nowMs,
+        ...(options.gap === undefined ? {} : { gapMs: options.gap * 1000 }),
+        ...(Object.keys(grids).length === 0 ? {} : { grids }),
+        ...(crs === undefined ? {} : { crs }),
+        ...(cleanProfile === undefined ? {} : { cleanProfile }),
+        ...(setup === undefined ? {} : { setup }),
+      };
+      const result = await pool.run<ConvertTaskPayload, ConvertTaskResult>(TASK_MODULE, 'convertFileTask', payload);
+      const outputs: WrittenOutput[] = [];
+      if (result.ok) {
+        if (out !== undefined) outputs.push(await out.write(out.pathFor(input, result.extension), result.text));
+        else stdoutText = result.text;
+      }
+      return {
+        file: input.displayName,
+        ok: result.ok,
+        ...(result.error === undefined ? {} : { error: result.error }),
+        format: result.format ?? null,
+        to: options.to,
+        fixCount: result.fixCount,
+        waypointCount: result.waypointCount,
+        rejectionCount: result.rejections.length,
+        rejections: result.rejections,
+        crs: result.crs,
+        cleaned: result.cleaned,
+        resolvedTracks: result.resolvedTracks,
+        outputs,
+      };
+    },
+    failed: (input, message) => ({
       file: input.displayName,
       ok: false,
       error: message,
@@ -268,8 +219,12 @@ export async function runConvert(
       cleaned: [],
       resolvedTracks: [],
       outputs: [],
-    };
+    }),
   });
+  if (typeof run === 'number') return run;
+  const { out, reports } = run;
+
+  let exitCode = run.exitCode;
   for (const report of reports) {
     if (!report.ok) {
       exitCode = EXIT_IO;
@@ -292,8 +247,7 @@ export async function runConvert(
   if (out === undefined) {
     if (stdoutText !== undefined) io.stdout(stdoutText);
     if (!options.quiet) for (const r of reports) if (r.crs) io.stderr(`${r.file}: ${r.crs.note}\n`);
-  } else if (options.json) printJson(io, reports);
-  else if (!options.quiet) io.stdout(formatTable(reports));
+  } else printReports(io, options, reports, formatTable);
   return exitCode;
 }
 

@@ -1,20 +1,8 @@
-import type { ReadOptions } from '@leadline/core';
-import { EXIT_IO, EXIT_OK, EXIT_USAGE } from '../exit-codes.js';
+import { EXIT_IO, EXIT_USAGE } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
 import { buildReadOptions } from '../support/build-read-options.js';
-import {
-  addCommonOptions,
-  type CommonOptions,
-  type InputFile,
-  loadConfig,
-  printJson,
-  readInputBytes,
-  resolveInputs,
-  runPool,
-  startProgress,
-} from '../support/index.js';
-import { createTaskPool } from '../support/task-pool.js';
-import { isUsageError } from '../support/usage-problem.js';
+import { addCommonOptions, type CommonOptions, loadConfig } from '../support/index.js';
+import { NOT_PREPARED, prepareRun, printReports, runFiles } from '../support/run-files.js';
 import type { RegisterCommand } from './index.js';
 import type { InspectFileReport, InspectTaskPayload } from './inspect-task.js';
 
@@ -71,77 +59,62 @@ export async function runInspect(
   io: CliIo,
   cwd: string = process.cwd(),
 ): Promise<number> {
-  let readOptions: ReadOptions;
-  try {
+  const prepared = await prepareRun('inspect', io, async () => {
     const { config } = await loadConfig(options.config, cwd);
-    readOptions = buildReadOptions(options, config);
-  } catch (error) {
-    if (isUsageError(error)) {
-      io.stderr(`leadline inspect: ${error.message}\n`);
-      return EXIT_USAGE;
-    }
-    throw error;
-  }
-  const { inputs, problems } = await resolveInputs(args, cwd);
-  for (const problem of problems) io.stderr(`leadline inspect: ${problem}\n`);
-  const progress = startProgress(io, inputs.length, options);
-  const pool = createTaskPool(Math.min(options.jobs, Math.max(1, inputs.length)));
-  let results: Awaited<ReturnType<typeof runPool<InputFile, InspectFileReport>>>;
-  try {
-    results = await runPool(
-      inputs,
-      options.jobs,
-      async (input) => {
-        const bytes = await readInputBytes(input);
-        const payload: InspectTaskPayload = { displayName: input.displayName, bytes, readOptions };
-        return pool.run<InspectTaskPayload, InspectFileReport>(TASK_MODULE, 'inspectFileTask', payload);
-      },
-      (done) => progress.update(done),
-    );
-  } finally {
-    progress.stop();
-    await pool.destroy();
-  }
-  let usageError: string | undefined;
-  const reports = results.map((result, i): InspectFileReport => {
-    const input = inputs[i] as InputFile;
-    if (result.ok) return result.value;
-    const error = result.error;
-    // a column map naming no column is the caller's mistake, said once
-    if (error instanceof Error && /names no column/.test(error.message)) usageError ??= error.message;
-    return {
-      file: input.displayName,
-      ok: false,
-      error: error instanceof Error ? error.message : `unexpected failure: ${String(error)}`,
-      format: null,
-      dialect: null,
-      rowCount: 0,
-      nonFixRowCount: 0,
-      fixCount: 0,
-      waypointCount: 0,
-      rejectionCount: 0,
-      rejections: [],
-      start: null,
-      end: null,
-      tracks: [],
-      columns: null,
-      summary: null,
-      notes: [],
-    };
+    return buildReadOptions(options, config);
   });
+  if (prepared === NOT_PREPARED) return EXIT_USAGE;
+  const readOptions = prepared;
+  let usageError: string | undefined;
+  const run = await runFiles<InspectFileReport>({
+    verb: 'inspect',
+    args,
+    options,
+    io,
+    cwd,
+    writesOutputs: false,
+    work: (input, { bytes, pool }) => {
+      const payload: InspectTaskPayload = { displayName: input.displayName, bytes, readOptions };
+      return pool.run<InspectTaskPayload, InspectFileReport>(TASK_MODULE, 'inspectFileTask', payload);
+    },
+    failed: (input, message, error) => {
+      // a column map naming no column is the caller's mistake, said once
+      if (error instanceof Error && /names no column/.test(error.message)) usageError ??= error.message;
+      return {
+        file: input.displayName,
+        ok: false,
+        error: message,
+        format: null,
+        dialect: null,
+        rowCount: 0,
+        nonFixRowCount: 0,
+        fixCount: 0,
+        waypointCount: 0,
+        rejectionCount: 0,
+        rejections: [],
+        start: null,
+        end: null,
+        tracks: [],
+        columns: null,
+        summary: null,
+        notes: [],
+      };
+    },
+  });
+  if (typeof run === 'number') return run;
   if (usageError !== undefined) {
     io.stderr(`leadline inspect: ${usageError}\n`);
     return EXIT_USAGE;
   }
-  let exitCode = problems.length > 0 ? EXIT_IO : EXIT_OK;
+  const { reports } = run;
+  let exitCode = run.exitCode;
   for (const report of reports) {
     if (!report.ok) {
       exitCode = EXIT_IO;
       io.stderr(`${report.file}: not read: ${report.error ?? 'unknown problem'}\n`);
     } else if (!options.json) for (const r of report.rejections) io.stderr(`${r.message}\n`);
   }
-  if (options.json) printJson(io, reports);
-  else if (!options.quiet) io.stdout(reports.map(formatReport).join('\n'));
+  printReports(io, options, reports, (r) => r.map(formatReport).join('\n'));
   return exitCode;
 }
 

@@ -1,33 +1,12 @@
-import { resolve as resolvePath } from 'node:path';
-import {
-  type AuditProfile,
-  parseUserProfiles,
-  type ReadOptions,
-  type ResolveReport,
-  type ResolveSetup,
-  resolveAuditProfile,
-  resolveCrs,
-} from '@leadline/core';
+import { parseUserProfiles, type ResolveReport, resolveAuditProfile, resolveCrs } from '@leadline/core';
 import { Option } from 'commander';
-import { EXIT_IO, EXIT_OK, EXIT_USAGE } from '../exit-codes.js';
+import { EXIT_IO, EXIT_USAGE } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
 import { buildReadOptions } from '../support/build-read-options.js';
-import {
-  addCommonOptions,
-  type CommonOptions,
-  type InputFile,
-  loadConfig,
-  OutputFolder,
-  printJson,
-  readInputBytes,
-  resolveInputs,
-  runPool,
-  startProgress,
-  type WrittenOutput,
-} from '../support/index.js';
+import { addCommonOptions, type CommonOptions, loadConfig, type WrittenOutput } from '../support/index.js';
 import { loadResolveSetup } from '../support/load-resolve-setup.js';
-import { createTaskPool } from '../support/task-pool.js';
-import { isUsageError, UsageProblem } from '../support/usage-problem.js';
+import { NOT_PREPARED, prepareRun, printReports, runFiles } from '../support/run-files.js';
+import { UsageProblem } from '../support/usage-problem.js';
 import type { RegisterCommand } from './index.js';
 import {
   RESOLVE_FORMATS,
@@ -116,18 +95,14 @@ export async function runResolve(
   io: CliIo,
   cwd: string = process.cwd(),
 ): Promise<number> {
-  let setup: ResolveSetup;
-  let auditProfile: AuditProfile;
-
-  let readOptions: ReadOptions;
-  try {
+  const prepared = await prepareRun('resolve', io, async () => {
     const { config } = await loadConfig(options.config, cwd);
-    readOptions = buildReadOptions(options, config);
+    const readOptions = buildReadOptions(options, config);
     const setupText = options.setup ?? config.defaults?.setup;
     if (setupText === undefined)
       throw new UsageProblem('resolve needs --setup <file|name|JSON> (or defaults.setup in the config file)');
-    setup = await loadResolveSetup(setupText, config.setups ?? {}, cwd);
-    auditProfile = resolveAuditProfile(
+    const setup = await loadResolveSetup(setupText, config.setups ?? {}, cwd);
+    const auditProfile = resolveAuditProfile(
       options.profile ?? config.defaults?.profile ?? 'inspection-rov',
       parseUserProfiles(config.profiles ?? {}),
     );
@@ -135,69 +110,56 @@ export async function runResolve(
     if (options.crs !== undefined && options.crs.toLowerCase() !== 'utm') resolveCrs(options.crs);
     if (options.crs !== undefined && options.to !== 'csv')
       throw new UsageProblem('--crs applies to --to csv only (GPX, GeoJSON and KML are always WGS 84)');
-  } catch (error) {
-    if (isUsageError(error)) {
-      io.stderr(`leadline resolve: ${error.message}\n`);
-      return EXIT_USAGE;
-    }
-    throw error;
-  }
-
-  const { inputs, problems } = await resolveInputs(args, cwd);
-  for (const problem of problems) io.stderr(`leadline resolve: ${problem}\n`);
-  const out =
-    options.out === undefined
-      ? undefined
-      : new OutputFolder(resolvePath(cwd, options.out), { force: options.force, inputs });
-  const progress = startProgress(io, inputs.length, options);
-  const pool = createTaskPool(Math.min(options.jobs, inputs.length));
-  let results: Awaited<ReturnType<typeof runPool<InputFile, ResolveFileReport>>>;
-  try {
-    results = await runPool(
-      inputs,
-      options.jobs,
-      async (input) => {
-        const bytes = await readInputBytes(input);
-        out?.recordInput(input, bytes);
-        const payload: ResolveTaskPayload = {
-          displayName: input.displayName,
-          bytes,
-          setup,
-          auditProfile,
-          readOptions,
-          to: options.to,
-          ...(options.crs === undefined ? {} : { crs: options.crs }),
-          withFiles: out !== undefined,
-        };
-        const result = await pool.run<ResolveTaskPayload, ResolveTaskResult>(TASK_MODULE, 'resolveFileTask', payload);
-        const outputs: WrittenOutput[] = [];
-        if (out !== undefined && result.ok)
-          for (const file of result.files)
-            outputs.push(await out.write(out.pathFor(input, file.extension, file.suffix), file.text));
-        return {
-          file: input.displayName,
-          ok: result.ok,
-          ...(result.error === undefined ? {} : { error: result.error }),
-          readRejections: result.readRejections,
-          tracks: result.tracks,
-          outputs,
-        };
-      },
-      (done) => progress.update(done),
-    );
-  } finally {
-    progress.stop();
-    await pool.destroy();
-  }
-
-  let exitCode = problems.length > 0 ? EXIT_IO : EXIT_OK;
-  const reports: ResolveFileReport[] = results.map((result, i) => {
-    const input = inputs[i] as InputFile;
-    if (result.ok) return result.value;
-    const message =
-      result.error instanceof Error ? result.error.message : `unexpected failure: ${String(result.error)}`;
-    return { file: input.displayName, ok: false, error: message, readRejections: [], tracks: [], outputs: [] };
+    return { readOptions, setup, auditProfile };
   });
+  if (prepared === NOT_PREPARED) return EXIT_USAGE;
+  const { readOptions, setup, auditProfile } = prepared;
+
+  const run = await runFiles<ResolveFileReport>({
+    verb: 'resolve',
+    args,
+    options,
+    io,
+    cwd,
+    writesOutputs: true,
+    work: async (input, { bytes, pool, out }) => {
+      const payload: ResolveTaskPayload = {
+        displayName: input.displayName,
+        bytes,
+        setup,
+        auditProfile,
+        readOptions,
+        to: options.to,
+        ...(options.crs === undefined ? {} : { crs: options.crs }),
+        withFiles: out !== undefined,
+      };
+      const result = await pool.run<ResolveTaskPayload, ResolveTaskResult>(TASK_MODULE, 'resolveFileTask', payload);
+      const outputs: WrittenOutput[] = [];
+      if (out !== undefined && result.ok)
+        for (const file of result.files)
+          outputs.push(await out.write(out.pathFor(input, file.extension, file.suffix), file.text));
+      return {
+        file: input.displayName,
+        ok: result.ok,
+        ...(result.error === undefined ? {} : { error: result.error }),
+        readRejections: result.readRejections,
+        tracks: result.tracks,
+        outputs,
+      };
+    },
+    failed: (input, message) => ({
+      file: input.displayName,
+      ok: false,
+      error: message,
+      readRejections: [],
+      tracks: [],
+      outputs: [],
+    }),
+  });
+  if (typeof run === 'number') return run;
+  const { out, reports } = run;
+
+  let exitCode = run.exitCode;
   for (const report of reports) {
     if (!report.ok) {
       exitCode = EXIT_IO;
@@ -213,8 +175,7 @@ export async function runResolve(
       read: readOptions,
     });
 
-  if (options.json) printJson(io, reports);
-  else if (!options.quiet) io.stdout(formatTable(reports));
+  printReports(io, options, reports, formatTable);
   return exitCode;
 }
 

@@ -1,24 +1,10 @@
-import { resolve as resolvePath } from 'node:path';
-import { parseUserProfiles, type ReadOptions, resolveAuditProfile, type SplitOptions } from '@leadline/core';
+import { parseUserProfiles, resolveAuditProfile, type SplitOptions } from '@leadline/core';
 import { InvalidArgumentError, Option } from 'commander';
-import { EXIT_IO, EXIT_OK, EXIT_USAGE } from '../exit-codes.js';
+import { EXIT_IO, EXIT_USAGE } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
 import { buildReadOptions } from '../support/build-read-options.js';
-import {
-  addCommonOptions,
-  type CommonOptions,
-  type InputFile,
-  loadConfig,
-  OutputFolder,
-  printJson,
-  readInputBytes,
-  resolveInputs,
-  runPool,
-  startProgress,
-  type WrittenOutput,
-} from '../support/index.js';
-import { createTaskPool } from '../support/task-pool.js';
-import { isUsageError } from '../support/usage-problem.js';
+import { addCommonOptions, type CommonOptions, loadConfig, type WrittenOutput } from '../support/index.js';
+import { NOT_PREPARED, prepareRun, printReports, runFiles } from '../support/run-files.js';
 import type { RegisterCommand } from './index.js';
 import {
   SPLIT_FORMATS,
@@ -104,72 +90,47 @@ export async function runSplit(
   io: CliIo,
   cwd: string = process.cwd(),
 ): Promise<number> {
-  let split: SplitOptions;
-  let readOptions: ReadOptions;
-  try {
+  const prepared = await prepareRun('split', io, async () => {
     const { config } = await loadConfig(options.config, cwd);
-    readOptions = buildReadOptions(options, config);
+    const readOptions = buildReadOptions(options, config);
     const profile = resolveAuditProfile(
       options.profile ?? config.defaults?.profile ?? 'inspection-rov',
       parseUserProfiles(config.profiles ?? {}),
     );
-    split = {
+    const split: SplitOptions = {
       splitGapS: options.gap ?? profile.splitGapS,
       surfaceDepthM: options.surfaceDepth ?? profile.surfaceDepthM,
       surfaceIntervalS: options.surfaceTime ?? profile.surfaceIntervalS,
     };
-  } catch (error) {
-    if (isUsageError(error)) {
-      io.stderr(`leadline split: ${error.message}\n`);
-      return EXIT_USAGE;
-    }
-    throw error;
-  }
-  const { inputs, problems } = await resolveInputs(args, cwd);
-  for (const problem of problems) io.stderr(`leadline split: ${problem}\n`);
-  const out =
-    options.out === undefined
-      ? undefined
-      : new OutputFolder(resolvePath(cwd, options.out), { force: options.force, inputs });
-  const progress = startProgress(io, inputs.length, options);
-  const pool = createTaskPool(Math.min(options.jobs, inputs.length));
-  let results: Awaited<ReturnType<typeof runPool<InputFile, SplitFileReport>>>;
-  try {
-    results = await runPool(
-      inputs,
-      options.jobs,
-      async (input) => {
-        const bytes = await readInputBytes(input);
-        out?.recordInput(input, bytes);
-        const payload: SplitTaskPayload = {
-          displayName: input.displayName,
-          bytes,
-          readOptions,
-          split,
-          to: options.to,
-          withFiles: out !== undefined,
-        };
-        const result = await pool.run<SplitTaskPayload, SplitTaskResult>(TASK_MODULE, 'splitFileTask', payload);
-        const outputs: WrittenOutput[] = [];
-        if (out !== undefined && result.ok)
-          for (const file of result.files)
-            outputs.push(await out.write(out.pathFor(input, file.extension, file.suffix), file.text));
-        const { files: _files, ...rest } = result;
-        return { file: input.displayName, ...rest, outputs };
-      },
-      (done) => progress.update(done),
-    );
-  } finally {
-    progress.stop();
-    await pool.destroy();
-  }
-  let exitCode = problems.length > 0 ? EXIT_IO : EXIT_OK;
-  const reports: SplitFileReport[] = results.map((result, i) => {
-    if (result.ok) return result.value;
-    const input = inputs[i] as InputFile;
-    const message =
-      result.error instanceof Error ? result.error.message : `unexpected failure: ${String(result.error)}`;
-    return {
+    return { readOptions, split };
+  });
+  if (prepared === NOT_PREPARED) return EXIT_USAGE;
+  const { readOptions, split } = prepared;
+  const run = await runFiles<SplitFileReport>({
+    verb: 'split',
+    args,
+    options,
+    io,
+    cwd,
+    writesOutputs: true,
+    work: async (input, { bytes, pool, out }) => {
+      const payload: SplitTaskPayload = {
+        displayName: input.displayName,
+        bytes,
+        readOptions,
+        split,
+        to: options.to,
+        withFiles: out !== undefined,
+      };
+      const result = await pool.run<SplitTaskPayload, SplitTaskResult>(TASK_MODULE, 'splitFileTask', payload);
+      const outputs: WrittenOutput[] = [];
+      if (out !== undefined && result.ok)
+        for (const file of result.files)
+          outputs.push(await out.write(out.pathFor(input, file.extension, file.suffix), file.text));
+      const { files: _files, ...rest } = result;
+      return { file: input.displayName, ...rest, outputs };
+    },
+    failed: (input, message) => ({
       file: input.displayName,
       ok: false,
       error: message,
@@ -178,28 +139,32 @@ export async function runSplit(
       surfaceIntervals: [],
       readRejections: [],
       outputs: [],
-    };
+    }),
   });
+  if (typeof run === 'number') return run;
+  const { out, reports } = run;
+  let exitCode = run.exitCode;
   for (const report of reports)
     if (!report.ok) {
       exitCode = EXIT_IO;
       io.stderr(`${report.file}: ${report.error ?? 'could not be split'}\n`);
     }
   if (out !== undefined) await out.writeManifest('split', { split, to: options.to, read: readOptions });
-  if (options.json) printJson(io, reports);
-  else if (!options.quiet) {
-    const lines = ['file\tdive\tfixes\tstart (UTC)\tend (UTC)'];
-    for (const r of reports) {
-      if (!r.ok) {
-        lines.push(`${r.file}\t-\t-\t-\tnot read: ${r.error ?? ''}`);
-        continue;
-      }
-      for (const d of r.dives)
-        lines.push(`${r.file}\t${d.track}\t${d.fixCount}\t${d.startTime ?? '-'}\t${d.endTime ?? '-'}`);
-      const surface = r.surfaceIntervals.reduce((sum, s) => sum + s.fixCount, 0);
-      lines.push(`${r.file}\t(surface)\t${surface}\t${r.surfaceIntervals.length} interval(s)\t`);
-    }
-    io.stdout(`${lines.join('\n')}\n`);
-  }
+  printReports(io, options, reports, formatTable);
   return exitCode;
+}
+
+function formatTable(reports: readonly SplitFileReport[]): string {
+  const lines = ['file\tdive\tfixes\tstart (UTC)\tend (UTC)'];
+  for (const r of reports) {
+    if (!r.ok) {
+      lines.push(`${r.file}\t-\t-\t-\tnot read: ${r.error ?? ''}`);
+      continue;
+    }
+    for (const d of r.dives)
+      lines.push(`${r.file}\t${d.track}\t${d.fixCount}\t${d.startTime ?? '-'}\t${d.endTime ?? '-'}`);
+    const surface = r.surfaceIntervals.reduce((sum, s) => sum + s.fixCount, 0);
+    lines.push(`${r.file}\t(surface)\t${surface}\t${r.surfaceIntervals.length} interval(s)\t`);
+  }
+  return `${lines.join('\n')}\n`;
 }

@@ -10,6 +10,8 @@ export { startProgress } from './progress.js';
 export { readInputBytes } from './read-input.js';
 export type { InputFile, ResolvedInputs } from './resolve-inputs.js';
 export { resolveInputs } from './resolve-inputs.js';
+export type { FileRun, FileWork, RunFilesSpec } from './run-files.js';
+export { NOT_PREPARED, prepareRun, printReports, runFiles } from './run-files.js';
 export { runPool } from './run-pool.js';
 export type { TaskPool } from './task-pool.js';
 export { createTaskPool } from './task-pool.js';

@@ -8,7 +8,9 @@ import { parseColumnMap } from './common-options.js';
 import { loadConfig } from './load-config.js';
 import { MANIFEST_FILE, OutputFolder, sha256Hex } from './output-folder.js';
 import { resolveInputs } from './resolve-inputs.js';
+import { NOT_PREPARED, prepareRun, runFiles } from './run-files.js';
 import { runPool } from './run-pool.js';
+import { UsageProblem } from './usage-problem.js';
 
 let dir: string;
 beforeEach(() => {
@@ -157,5 +159,73 @@ describe('runPool', () => {
       { ok: true, value: 2 },
     ]);
     expect(results[3]?.ok).toBe(false);
+  });
+});
+
+function sink() {
+  const stderr: string[] = [];
+  return { stderr, io: { isTty: false, stdout: () => {}, stderr: (t: string) => stderr.push(t) } };
+}
+
+describe('runFiles', () => {
+  const options = { jobs: 1, json: false, quiet: true, progress: false, force: false };
+
+  it('hands every input to the work with its bytes, keeps a failure to its own input, and says unmatched arguments', async () => {
+    const { io, stderr } = sink();
+    const run = await runFiles({
+      verb: 'try',
+      args: ['season', 'nope.csv'],
+      options: { ...options, out: 'out' },
+      io,
+      cwd: dir,
+      writesOutputs: true,
+      work: async (input, { bytes }) => {
+        if (input.relativePath.endsWith('.gpx')) throw new Error('bad file');
+        return `${input.relativePath}:${bytes.byteLength}`;
+      },
+      failed: (input, message) => `${input.relativePath} failed: ${message}`,
+    });
+    if (typeof run === 'number') throw new Error(`refused with ${run}`);
+    expect(run.reports).toEqual([`${join('day1', 'dive1.csv')}:2`, `${join('day1', 'dive2.gpx')} failed: bad file`]);
+    expect(run.exitCode).toBe(3);
+    expect(stderr).toEqual(['leadline try: nope.csv: no such file or folder\n']);
+    expect(run.out?.root).toBe(join(dir, 'out'));
+  });
+
+  it('refuses the inputs with a usage error (exit 2) before reading any', async () => {
+    const { io, stderr } = sink();
+    let worked = 0;
+    const run = await runFiles({
+      verb: 'try',
+      args: ['season'],
+      options,
+      io,
+      cwd: dir,
+      writesOutputs: false,
+      checkInputs: (inputs) => `${inputs.length} inputs need --out`,
+      work: async () => ++worked,
+      failed: () => -1,
+    });
+    expect(run).toBe(2);
+    expect(worked).toBe(0);
+    expect(stderr).toEqual(['leadline try: 2 inputs need --out\n']);
+  });
+});
+
+describe('prepareRun', () => {
+  it('says a usage problem once and gives NOT_PREPARED; a bug is thrown on', async () => {
+    const { io, stderr } = sink();
+    expect(await prepareRun('try', io, async () => 7)).toBe(7);
+    expect(
+      await prepareRun('try', io, async () => {
+        throw new UsageProblem('--crs applies to --to csv only');
+      }),
+    ).toBe(NOT_PREPARED);
+    expect(stderr).toEqual(['leadline try: --crs applies to --to csv only\n']);
+    await expect(
+      prepareRun('try', io, async () => {
+        throw new TypeError('a bug');
+      }),
+    ).rejects.toThrow('a bug');
   });
 });

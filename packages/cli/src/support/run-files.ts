@@ -1,0 +1,135 @@
+import { resolve as resolvePath } from 'node:path';
+import { EXIT_IO, EXIT_OK, EXIT_USAGE } from '../exit-codes.js';
+import type { CliIo } from '../io.js';
+import type { CommonOptions } from './common-options.js';
+import { OutputFolder } from './output-folder.js';
+import { printJson } from './print-json.js';
+import { startProgress } from './progress.js';
+import { readInputBytes } from './read-input.js';
+import { type InputFile, resolveInputs } from './resolve-inputs.js';
+import { runPool } from './run-pool.js';
+import { createTaskPool, type TaskPool } from './task-pool.js';
+import { isUsageError } from './usage-problem.js';
+
+/** What a verb's per-file work gets besides the input. */
+export interface FileWork {
+  /** The input's bytes, read whole (standard input for `-`); already recorded in the manifest. */
+  bytes: Uint8Array;
+  /** The worker threads of this run. */
+  pool: TaskPool;
+  /** The `--out` folder, when the verb writes one and `--out` was given. */
+  out: OutputFolder | undefined;
+  /** The input's position in `inputs`. */
+  index: number;
+}
+
+/** How one verb runs over its inputs. */
+export interface RunFilesSpec<R> {
+  /** The verb, for messages (`leadline <verb>: ...`). */
+  verb: string;
+  args: readonly string[];
+  options: CommonOptions;
+  io: CliIo;
+  cwd: string;
+  /** Whether `--out` makes an output folder for this verb (inspect writes none). */
+  writesOutputs: boolean;
+  /** Checks on the resolved inputs before any is read; a message returned is a usage error (exit 2). */
+  checkInputs?: (inputs: readonly InputFile[]) => string | undefined;
+  /** The work on one input, on the pool; an exception is turned into `failed` for that input only. */
+  work: (input: InputFile, context: FileWork) => Promise<R>;
+  /** The report for an input whose work threw, with the error's message. */
+  failed: (input: InputFile, message: string, error: unknown) => R;
+}
+
+/** What a run over the inputs gives back to its verb. */
+export interface FileRun<R> {
+  inputs: InputFile[];
+  /** Arguments that matched nothing (already said on standard error). */
+  problems: string[];
+  out: OutputFolder | undefined;
+  /** One report per input, in input order. */
+  reports: R[];
+  /** `EXIT_IO` when an argument matched nothing, else `EXIT_OK`; the verb raises it for failed inputs. */
+  exitCode: number;
+}
+
+/**
+ * The run loop every file verb shares: resolve the inputs (saying each argument that matched
+ * nothing), open the `--out` folder, read each input and hand it to `work` with at most `--jobs` at
+ * once on worker threads, with a progress bar; a failure of one input becomes its `failed` report
+ * and never stops the others. Returns `EXIT_USAGE` when `checkInputs` refuses the inputs.
+ */
+export async function runFiles<R>(spec: RunFilesSpec<R>): Promise<FileRun<R> | number> {
+  const { io, options, verb } = spec;
+  const { inputs, problems } = await resolveInputs(spec.args, spec.cwd);
+  for (const problem of problems) io.stderr(`leadline ${verb}: ${problem}\n`);
+  const refused = spec.checkInputs?.(inputs);
+  if (refused !== undefined) {
+    io.stderr(`leadline ${verb}: ${refused}\n`);
+    return EXIT_USAGE;
+  }
+  const out =
+    spec.writesOutputs && options.out !== undefined
+      ? new OutputFolder(resolvePath(spec.cwd, options.out), { force: options.force, inputs })
+      : undefined;
+  const progress = startProgress(io, inputs.length, options);
+  const pool = createTaskPool(Math.min(options.jobs, Math.max(1, inputs.length)));
+  let results: Awaited<ReturnType<typeof runPool<InputFile, R>>>;
+  try {
+    results = await runPool(
+      inputs,
+      options.jobs,
+      async (input, index) => {
+        const bytes = await readInputBytes(input);
+        out?.recordInput(input, bytes);
+        return spec.work(input, { bytes, pool, out, index });
+      },
+      (done) => progress.update(done),
+    );
+  } finally {
+    progress.stop();
+    await pool.destroy();
+  }
+  const reports = results.map((result, i) => {
+    if (result.ok) return result.value;
+    const error = result.error;
+    const message = error instanceof Error ? error.message : `unexpected failure: ${String(error)}`;
+    return spec.failed(inputs[i] as InputFile, message, error);
+  });
+  return { inputs, problems, out, reports, exitCode: problems.length > 0 ? EXIT_IO : EXIT_OK };
+}
+
+/**
+ * Runs a verb's preparation (config, profiles, setups, option checks); a usage error is said once
+ * as `leadline <verb>: <message>` and gives `EXIT_USAGE` instead of the prepared value. Anything else
+ * is a bug and is thrown on.
+ */
+export async function prepareRun<T>(
+  verb: string,
+  io: CliIo,
+  prepare: () => Promise<T>,
+): Promise<T | typeof NOT_PREPARED> {
+  try {
+    return await prepare();
+  } catch (error) {
+    if (isUsageError(error)) {
+      io.stderr(`leadline ${verb}: ${error.message}\n`);
+      return NOT_PREPARED;
+    }
+    throw error;
+  }
+}
+
+/** What `prepareRun` gives back after a usage error (the verb then returns `EXIT_USAGE`). */
+export const NOT_PREPARED: unique symbol = Symbol('not prepared');
+
+/** Prints the run's reports: one JSON document with `--json`, else the verb's table unless `--quiet`. */
+export function printReports<R>(
+  io: CliIo,
+  options: Pick<CommonOptions, 'json' | 'quiet'>,
+  reports: readonly R[],
+  formatTable: (reports: readonly R[]) => string,
+): void {
+  if (options.json) printJson(io, reports);
+  else if (!options.quiet) io.stdout(formatTable(reports));
+}
