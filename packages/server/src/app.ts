@@ -19,6 +19,7 @@ import type { Mailer } from './mail/mailer.js';
 import { createApiTokenRoutes } from './routes/api-token-routes.js';
 import { createAuthRoutes } from './routes/auth-routes.js';
 import { createConvertRoutes } from './routes/convert-routes.js';
+import { createCrsRoutes } from './routes/crs-routes.js';
 import { createDiveRoutes } from './routes/dive-routes.js';
 import { createHealthRoutes } from './routes/health-routes.js';
 import { createInvitationRoutes } from './routes/invitation-routes.js';
@@ -171,6 +172,7 @@ export function buildApp(deps: AppDependencies): BuiltApp {
     }),
     ...createDiveRoutes(archive),
     ...createConvertRoutes(ctx.now),
+    ...createCrsRoutes(),
     ...(deps.fakeMailbox === undefined ? [] : createMailboxRoutes(deps.fakeMailbox)),
   ];
   let openApi: unknown;

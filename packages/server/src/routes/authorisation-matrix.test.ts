@@ -103,11 +103,14 @@ const INTENDED_ACCESS: Record<string, string> = {
   'GET /organisations/:organisationId/projects/:projectId/dives/:diveId/track': 'viewer',
   'GET /organisations/:organisationId/projects/:projectId/dives/:diveId/report': 'viewer',
   'POST /organisations/:organisationId/projects/:projectId/dives/:diveId/reprocess': 'editor',
+  'GET /organisations/:organisationId/projects/:projectId/dives/:diveId/results/:resultId/displacement': 'viewer',
   'GET /organisations/:organisationId/projects/:projectId/logs/:logId/runs': 'viewer',
   'POST /organisations/:organisationId/projects/:projectId/logs/:logId/reprocess': 'editor',
   'GET /organisations/:organisationId/projects/:projectId/dive-archive': 'viewer',
   'POST /convert': 'signed-in',
   'GET /dives/:diveId': 'signed-in',
+  // A registry look-up, no organisation's data: anyone signed in, and tokens of any scope.
+  'GET /crs': 'signed-in',
 };
 
 const RANK: Record<Role, number> = { viewer: 0, editor: 1, admin: 2 };
