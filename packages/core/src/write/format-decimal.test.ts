@@ -33,4 +33,15 @@ describe('formatIsoTime', () => {
     expect(formatIsoTime(Number.NaN)).toBe('');
     expect(formatIsoTime(1e20)).toBe('');
   });
+
+  it('agrees with Date#toISOString (the ECMAScript ISO 8601 form) along a track, across midnight, before 1970 and at the year ends', () => {
+    const times: number[] = [];
+    for (let i = 0; i < 200_000; i++) times.push(Date.UTC(2026, 5, 30, 23, 0, 0) + i * 997);
+    for (let i = 0; i < 2_000; i++) times.push(Date.UTC(1969, 11, 31, 23, 59, 0) + i * 61);
+    times.push(-1, 0, 86_399_999, 86_400_000, -86_400_000, 1.5, 1000.25);
+    times.push(Date.UTC(0, 0, 1) - 1, Date.UTC(9999, 11, 31, 23, 59, 59, 999), Date.UTC(9999, 11, 31) + 86_400_000);
+    times.push(Date.UTC(2026, 5, 1), Date.UTC(2025, 0, 1), Date.UTC(2026, 5, 1) + 5);
+    const wrong = times.filter((t) => formatIsoTime(t) !== new Date(t).toISOString());
+    expect(wrong).toEqual([]);
+  });
 });

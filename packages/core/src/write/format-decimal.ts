@@ -13,13 +13,19 @@ export function formatDecimal(value: number, decimals?: number): string {
   let text: string;
   if (decimals === undefined) {
     text = String(value);
-    if (/e/i.test(text)) text = expandExponent(text);
+    if (text.includes('e')) text = expandExponent(text);
   } else {
     text = value.toFixed(decimals);
-    if (/e/i.test(text)) text = expandExponent(text);
-    if (text.includes('.')) text = text.replace(/0+$/, '').replace(/\.$/, '');
+    if (text.includes('e')) text = expandExponent(text);
+    if (text.includes('.')) {
+      // Trailing zeros, then a bare point, are dropped.
+      let end = text.length;
+      while (text.charCodeAt(end - 1) === 48) end--;
+      if (text.charCodeAt(end - 1) === 46) end--;
+      text = text.slice(0, end);
+    }
   }
-  if (/^-0(\.0*)?$/.test(text)) return '0';
+  if (text.startsWith('-0') && /^-0(\.0*)?$/.test(text)) return '0';
   return text;
 }
 
@@ -48,6 +54,27 @@ export function escapeXml(text: string): string {
 /** UTC ms to ISO 8601 with milliseconds and `Z`; empty for `NaN` or a time outside the Date range. */
 export function formatIsoTime(timeMs: number): string {
   if (!Number.isFinite(timeMs)) return '';
+  // Writers format fixes in time order, mostly within one day: the date part of the last day
+  // formatted is kept, and the time of day is written directly (same text as toISOString).
+  const intoDay = timeMs - isoDayStartMs;
+  if (intoDay >= 0 && intoDay < 86_400_000 && Number.isInteger(timeMs)) {
+    const h = Math.floor(intoDay / 3_600_000);
+    const m = Math.floor(intoDay / 60_000) % 60;
+    const sec = Math.floor(intoDay / 1000) % 60;
+    const ms = intoDay % 1000;
+    return `${isoDayPrefix}${TWO_DIGITS[h]}:${TWO_DIGITS[m]}:${TWO_DIGITS[sec]}.${ms < 10 ? '00' : ms < 100 ? '0' : ''}${ms}Z`;
+  }
   const date = new Date(timeMs);
-  return Number.isNaN(date.getTime()) ? '' : date.toISOString();
+  if (Number.isNaN(date.getTime())) return '';
+  const iso = date.toISOString();
+  // Only plain four-digit years (`YYYY-MM-DDT`) are kept as the day to reuse.
+  if (iso.length === 24 && Number.isInteger(timeMs)) {
+    isoDayStartMs = timeMs - (((timeMs % 86_400_000) + 86_400_000) % 86_400_000);
+    isoDayPrefix = iso.slice(0, 11);
+  }
+  return iso;
 }
+
+const TWO_DIGITS = Array.from({ length: 60 }, (_, i) => String(i).padStart(2, '0'));
+let isoDayStartMs = Number.NaN;
+let isoDayPrefix = '';

@@ -87,25 +87,19 @@ export function writeCsv(input: WriteInput, options: WriteCsvOptions = {}): stri
     const c = track.columns;
     const projected = reprojection?.forward(c.lonDeg, c.latDeg);
     const ranges = segmentRanges(track, options.gapMs);
+    // Numbers never need quoting (digits, '-', '.'); the track's own fields are quoted once.
+    const trackFields = `${quote(track.id, sep)}${sep}${quote(track.role, sep)}${sep}`;
+    const nameField = `${sep}${quote(track.name ?? '', sep)}${sep}`;
+    const optional = columns.map(([column]) => c[column]);
     for (let s = 0; s < ranges.length; s++) {
       const [start, end] = ranges[s] as [number, number];
+      const segmentFields = `${trackFields}${s + 1}${nameField}`;
       for (let i = start; i < end; i++) {
-        const fields = [
-          track.id,
-          track.role,
-          String(s + 1),
-          track.name ?? '',
-          formatIsoTime(c.timeMs[i] as number),
-          formatDecimal(c.latDeg[i] as number, degDecimals),
-          formatDecimal(c.lonDeg[i] as number, degDecimals),
-        ];
+        let row = `${segmentFields}${formatIsoTime(c.timeMs[i] as number)}${sep}${formatDecimal(c.latDeg[i] as number, degDecimals)}${sep}${formatDecimal(c.lonDeg[i] as number, degDecimals)}`;
         if (projected)
-          fields.push(
-            formatDecimal(projected.x[i] as number, crsDecimals),
-            formatDecimal(projected.y[i] as number, crsDecimals),
-          );
-        for (const [column] of columns) fields.push(formatDecimal(c[column][i] as number));
-        rows.push(fields.map((f) => quote(f, sep)).join(sep));
+          row += `${sep}${formatDecimal(projected.x[i] as number, crsDecimals)}${sep}${formatDecimal(projected.y[i] as number, crsDecimals)}`;
+        for (const values of optional) row += `${sep}${formatDecimal(values[i] as number)}`;
+        rows.push(row);
       }
     }
   }

@@ -28,10 +28,17 @@ export interface WriteGeoJsonOptions {
   indent?: number;
 }
 
+// One line of a track feature: positions (already rounded) with their times (ms, NaN when
+// unknown) and depths, in parallel arrays (no per-position objects on this hot path).
 interface Piece {
-  coords: number[][];
-  times: (string | null)[];
-  depthsM: (number | null)[];
+  lon: number[];
+  lat: number[];
+  timeMs: number[];
+  depthM: number[];
+}
+
+function newPiece(): Piece {
+  return { lon: [], lat: [], timeMs: [], depthM: [] };
 }
 
 function round(value: number, decimals: number): number {
@@ -44,13 +51,13 @@ function round(value: number, decimals: number): number {
 function splitAtAntimeridian(track: Track, start: number, end: number, decimals: number): Piece[] {
   const c = track.columns;
   const pieces: Piece[] = [];
-  let piece: Piece = { coords: [], times: [], depthsM: [] };
+  let piece = newPiece();
   let prev = -1;
   const push = (p: Piece, lon: number, lat: number, timeMs: number, depthM: number) => {
-    p.coords.push([round(lon, decimals), round(lat, decimals)]);
-    const iso = formatIsoTime(timeMs);
-    p.times.push(iso === '' ? null : iso);
-    p.depthsM.push(Number.isFinite(depthM) ? depthM : null);
+    p.lon.push(round(lon, decimals));
+    p.lat.push(round(lat, decimals));
+    p.timeMs.push(timeMs);
+    p.depthM.push(depthM);
   };
   for (let i = start; i < end; i++) {
     const lat = c.latDeg[i] as number;
@@ -76,7 +83,7 @@ function splitAtAntimeridian(track: Track, start: number, end: number, decimals:
         // A fix exactly on the antimeridian is itself the crossing point: do not repeat it.
         if (w > 1e-12) push(piece, edge, latX, tX, zX);
         pieces.push(piece);
-        piece = { coords: [], times: [], depthsM: [] };
+        piece = newPiece();
         if (w < 1 - 1e-12) push(piece, -edge, latX, tX, zX);
       }
     }
@@ -84,45 +91,73 @@ function splitAtAntimeridian(track: Track, start: number, end: number, decimals:
     prev = i;
   }
   pieces.push(piece);
-  return pieces.filter((p) => p.coords.length > 0);
+  return pieces.filter((p) => p.lon.length > 0);
 }
 
-function trackFeature(track: Track, decimals: number, gapMs: number | undefined): object | undefined {
+// A track as one compact GeoJSON Feature, serialised here rather than through JSON.stringify of
+// nested arrays (the same text: JSON numbers are JavaScript's shortest round-trip digits).
+function trackFeature(track: Track, decimals: number, gapMs: number | undefined): string | undefined {
   const pieces = segmentRanges(track, gapMs).flatMap(([s, e]) => splitAtAntimeridian(track, s, e, decimals));
   if (pieces.length === 0) return undefined;
   // A LineString needs two or more positions (RFC 7946 §3.1.4): a one-fix piece repeats its point.
   for (const p of pieces) {
-    if (p.coords.length === 1) {
-      p.coords.push([...(p.coords[0] as number[])]);
-      p.times.push(p.times[0] ?? null);
-      p.depthsM.push(p.depthsM[0] ?? null);
+    if (p.lon.length === 1) {
+      p.lon.push(p.lon[0] as number);
+      p.lat.push(p.lat[0] as number);
+      p.timeMs.push(p.timeMs[0] as number);
+      p.depthM.push(p.depthM[0] as number);
     }
   }
   const lats: number[] = [];
   const lons: number[] = [];
   for (const p of pieces)
-    for (const [lon, lat] of p.coords) {
-      lats.push(lat as number);
-      lons.push(lon as number);
+    for (let i = 0; i < p.lon.length; i++) {
+      lats.push(p.lat[i] as number);
+      lons.push(p.lon[i] as number);
     }
   const box = computeBoundingBox(lats, lons);
-  const single = pieces.length === 1 ? pieces[0] : undefined;
-  return {
-    type: 'Feature',
-    ...(box ? { bbox: [box.west, box.south, box.east, box.north].map((v) => round(v, decimals)) } : {}),
-    properties: {
-      id: track.id,
-      name: track.name ?? track.id,
-      role: track.role,
-      sourceFile: track.provenance.sourceFile,
-      // Per-position values parallel to the coordinates (nested like them for a MultiLineString).
-      times: single ? single.times : pieces.map((p) => p.times),
-      depthsM: single ? single.depthsM : pieces.map((p) => p.depthsM),
-    },
-    geometry: single
-      ? { type: 'LineString', coordinates: single.coords }
-      : { type: 'MultiLineString', coordinates: pieces.map((p) => p.coords) },
-  };
+  const single = pieces.length === 1;
+  const nest = (each: (p: Piece) => string) => (single ? each(pieces[0] as Piece) : `[${pieces.map(each).join(',')}]`);
+  const bbox = box
+    ? `"bbox":${JSON.stringify([box.west, box.south, box.east, box.north].map((v) => round(v, decimals)))},`
+    : '';
+  const head = JSON.stringify({
+    id: track.id,
+    name: track.name ?? track.id,
+    role: track.role,
+    sourceFile: track.provenance.sourceFile,
+  });
+  // Per-position values parallel to the coordinates (nested like them for a MultiLineString).
+  const properties = `${head.slice(0, -1)},"times":${nest(timesJson)},"depthsM":${nest(depthsJson)}}`;
+  const geometry = single
+    ? `{"type":"LineString","coordinates":${coordinatesJson(pieces[0] as Piece)}}`
+    : `{"type":"MultiLineString","coordinates":[${pieces.map(coordinatesJson).join(',')}]}`;
+  return `{"type":"Feature",${bbox}"properties":${properties},"geometry":${geometry}}`;
+}
+
+function coordinatesJson(p: Piece): string {
+  let text = '[';
+  for (let i = 0; i < p.lon.length; i++) text += `${i === 0 ? '' : ','}[${p.lon[i]},${p.lat[i]}]`;
+  return `${text}]`;
+}
+
+function timesJson(p: Piece): string {
+  let text = '[';
+  for (let i = 0; i < p.timeMs.length; i++) {
+    const iso = formatIsoTime(p.timeMs[i] as number);
+    text += `${i === 0 ? '' : ','}${iso === '' ? 'null' : `"${iso}"`}`;
+  }
+  return `${text}]`;
+}
+
+function depthsJson(p: Piece): string {
+  let text = '[';
+  for (let i = 0; i < p.depthM.length; i++) {
+    const d = p.depthM[i] as number;
+    // JSON.stringify writes -0 as 0; String(-0) does too.
+    text += `${i === 0 ? '' : ','}${Number.isFinite(d) ? String(d) : 'null'}`;
+  }
+  return `${text}]`;
 }
 
 // Keeps the part of a ring (longitudes unwrapped, so continuous) on one side of a meridian
@@ -216,7 +251,7 @@ function areaFeature(area: GeoJsonArea, decimals: number): object | undefined {
 export function writeGeoJson(given: WriteInput, options: WriteGeoJsonOptions = {}): string {
   const input = options.surfaceFromColumns === false ? given : withSurfaceTracks(given);
   const decimals = options.coordinateDecimals ?? 7;
-  const features: object[] = [];
+  const features: string[] = [];
   for (const t of input.tracks) {
     const f = trackFeature(t, decimals, options.gapMs);
     if (f) features.push(f);
@@ -233,28 +268,30 @@ export function writeGeoJson(given: WriteInput, options: WriteGeoJsonOptions = {
     lats.push(w.latDeg);
     lons.push(w.lonDeg);
     const time = formatIsoTime(w.timeMs);
-    features.push({
-      type: 'Feature',
-      properties: {
-        name: w.name,
-        ...(w.description === undefined ? {} : { description: w.description }),
-        depthM: Number.isFinite(w.depthM) ? w.depthM : null,
-        time: time === '' ? null : time,
-      },
-      geometry: { type: 'Point', coordinates: [round(wrapLongitude(w.lonDeg), decimals), round(w.latDeg, decimals)] },
-    });
+    features.push(
+      JSON.stringify({
+        type: 'Feature',
+        properties: {
+          name: w.name,
+          ...(w.description === undefined ? {} : { description: w.description }),
+          depthM: Number.isFinite(w.depthM) ? w.depthM : null,
+          time: time === '' ? null : time,
+        },
+        geometry: { type: 'Point', coordinates: [round(wrapLongitude(w.lonDeg), decimals), round(w.latDeg, decimals)] },
+      }),
+    );
   }
   for (const a of options.areas ?? []) {
     const f = areaFeature(a, decimals);
-    if (f) features.push(f);
+    if (f) features.push(JSON.stringify(f));
     lats.push(...a.latDeg);
     lons.push(...a.lonDeg);
   }
   const box = computeBoundingBox(lats, lons);
-  const collection = {
-    type: 'FeatureCollection',
-    ...(box ? { bbox: [box.west, box.south, box.east, box.north].map((v) => round(v, decimals)) } : {}),
-    features,
-  };
-  return `${JSON.stringify(collection, null, options.indent)}\n`;
+  const bbox = box
+    ? `"bbox":${JSON.stringify([box.west, box.south, box.east, box.north].map((v) => round(v, decimals)))},`
+    : '';
+  const compact = `{"type":"FeatureCollection",${bbox}"features":[${features.join(',')}]}`;
+  if (options.indent === undefined) return `${compact}\n`;
+  return `${JSON.stringify(JSON.parse(compact), null, options.indent)}\n`;
 }
