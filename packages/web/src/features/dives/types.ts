@@ -81,6 +81,16 @@ export interface GridCrsChoice {
   proj4: string;
 }
 
+/** Where an archived dive lives, for its downloads, history and reprocessing. */
+export interface DiveArchiveRef {
+  organisationId: string;
+  projectId: string;
+  logId: string;
+  /** The latest result (the one shown). */
+  resultId: string;
+  logFileName: string;
+}
+
 /** Everything the dive view shows. */
 export interface DiveViewData {
   id: string;
@@ -100,6 +110,8 @@ export interface DiveViewData {
   s44: readonly S44ShareView[];
   /** Projected CRSs offered for the grid besides the local frame and the dive's UTM zone. */
   crsChoices?: readonly GridCrsChoice[];
+  /** Present for a dive from the archive (absent for a preview). */
+  archive?: DiveArchiveRef;
 }
 
 /** What the plan view and the profile colour the vehicle track by. */

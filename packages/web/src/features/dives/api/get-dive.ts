@@ -4,15 +4,18 @@ import type { DiveFinding, DiveSummaryView, DiveViewData, GridCrsChoice, S44Shar
 import { diveKeys } from './keys';
 
 /**
- * The expected answer of `GET /api/v1/dives/:diveId` (the server route does not exist yet; this is
- * the shape the web asks for). Columns are parallel arrays indexed by fix, `null` for a missing value
+ * The answer of `GET /api/v1/dives/:diveId`. Columns are parallel arrays indexed by fix, `null` for a missing value
  * (JSON has no NaN).
  */
 export interface DiveResponse {
   id: string;
   name: string;
+  organisationId: string;
   projectId: string;
   projectName: string;
+  logId: string;
+  /** The latest result, the one the page shows. */
+  resultId: string;
   site: string | null;
   vehicle: string | null;
   logFileName: string;
@@ -69,6 +72,13 @@ export function toDiveViewData(response: DiveResponse): DiveViewData {
     summary: response.summary,
     s44: response.s44,
     crsChoices: response.projectCrs ? [response.projectCrs] : [],
+    archive: {
+      organisationId: response.organisationId,
+      projectId: response.projectId,
+      logId: response.logId,
+      resultId: response.resultId,
+      logFileName: response.logFileName,
+    },
   };
 }
 
