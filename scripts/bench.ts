@@ -31,7 +31,8 @@ const benchmarks: Array<{ name: string; run: () => Promise<string> }> = [];
   };
   const rate = (t: { cpuMs: number; wallMs: number }) =>
     `${(((n / t.cpuMs) * 1000) / 1e6).toFixed(2)} M points/s per CPU second (${t.cpuMs.toFixed(0)} ms CPU, ${t.wallMs.toFixed(0)} ms wall for 1 M, best of 3)`;
-  for (const code of ['EPSG:32632', 'EPSG:3857', 'EPSG:3035', 'EPSG:27700']) {
+  // UTM, Pseudo-Mercator, LAEA, LCC, polar stereographic, a Helmert shift + TM, and proj4's oblique stereographic after a Helmert shift.
+  for (const code of ['EPSG:32632', 'EPSG:3857', 'EPSG:3035', 'EPSG:2154', 'EPSG:3413', 'EPSG:27700', 'EPSG:28992']) {
     benchmarks.push({
       name: `reproject 1 M WGS 84 points to ${code}`,
       run: async () => {
@@ -341,55 +342,11 @@ benchmarks.push({
   },
 });
 
-// Command line over a season (issue 8): convert the simulated 250-dive season (left by the simulator
-// benchmark above) to GeoJSON and to CSV in UTM, and audit it, each as the `leadline` binary on all cores.
-// Targets: the whole season in <= 15 s wall with peak RSS <= 512 MB. GDAL's ogr2ogr, when installed, gives
-// a reference point for the bare conversion.
+// Command line over a season (issue 8): convert the simulated 250-dive season to GeoJSON and to CSV in
+// UTM, and audit it, as the `leadline` binary; ogr2ogr as a reference point (scripts/bench-season.ts).
 benchmarks.push({
   name: 'leadline convert/audit over the simulated 250-dive season (binary, all cores)',
-  run: async () => {
-    const { spawnSync } = await import('node:child_process');
-    const { existsSync, mkdtempSync, rmSync } = await import('node:fs');
-    const { tmpdir } = await import('node:os');
-    const { join } = await import('node:path');
-    const season = join(tmpdir(), 'leadline-bench', 'season-250-dives-120-min-seed-1');
-    if (!existsSync(season)) return 'skipped: the simulator benchmark did not leave a season to read';
-    const out = mkdtempSync(join(tmpdir(), 'leadline-bench-out-'));
-    const runs: Array<[string, string[]]> = [
-      ['convert --to geojson', ['convert', season, '--to', 'geojson', '--out', join(out, 'geojson'), '--quiet']],
-      [
-        'convert --to csv --crs utm',
-        ['convert', season, '--to', 'csv', '--crs', 'utm', '--out', join(out, 'csv'), '--quiet'],
-      ],
-      ['audit', ['audit', season, '--report', 'json', '--out', join(out, 'audit'), '--quiet']],
-    ];
-    const parts: string[] = [];
-    for (const [label, args] of runs) {
-      const t0 = performance.now();
-      // GNU time reports the peak resident set of the process (worker threads included).
-      const result = spawnSync(
-        '/usr/bin/time',
-        ['-f', '%M', process.execPath, 'packages/cli/bin/leadline.mjs', ...args],
-        {
-          encoding: 'utf8',
-          maxBuffer: 64 * 1024 * 1024,
-        },
-      );
-      const seconds = (performance.now() - t0) / 1000;
-      const peakMb = Number(result.stderr.trim().split('\n').at(-1)) / 1024;
-      parts.push(`${label}: exit ${result.status}, ${seconds.toFixed(1)} s wall, peak RSS ${peakMb.toFixed(0)} MB`);
-    }
-    if (existsSync('/usr/bin/ogr2ogr')) {
-      const gpx = spawnSync('sh', ['-c', `ls ${season}/*/*.gpx | head -1`], { encoding: 'utf8' }).stdout.trim();
-      const t0 = performance.now();
-      spawnSync('/usr/bin/ogr2ogr', ['-f', 'GeoJSON', join(out, 'ogr.geojson'), gpx, 'track_points']);
-      parts.push(`ogr2ogr one GPX to GeoJSON for reference: ${((performance.now() - t0) / 1000).toFixed(2)} s`);
-    } else {
-      parts.push('ogr2ogr not installed (apt-get install gdal-bin for a reference figure)');
-    }
-    rmSync(out, { recursive: true, force: true });
-    return parts.join('; ');
-  },
+  run: async () => (await import('./bench-season.js')).runSeasonBench(),
 });
 
 // The archive (issue 9): background processing of a 7,200-fix dive and its track over HTTP, on PostgreSQL.
@@ -398,6 +355,9 @@ benchmarks.push({
   run: async () => (await import('./bench-archive.js')).runArchiveBench(),
 });
 
+// LEADLINE_BENCH_ONLY=<words> runs only the benchmarks whose name contains them (e.g. "season").
+const only = process.env.LEADLINE_BENCH_ONLY?.toLowerCase();
 for (const benchmark of benchmarks) {
+  if (only !== undefined && !benchmark.name.toLowerCase().includes(only)) continue;
   process.stdout.write(`${benchmark.name}: ${await benchmark.run()}\n`);
 }

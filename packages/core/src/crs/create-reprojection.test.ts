@@ -102,6 +102,24 @@ describe('createReprojection', () => {
     expect(Math.abs(n - 5538630.7)).toBeLessThanOrEqual(HALF_CM);
   });
 
+  it('uses its own code for the common methods and says which (engine names are part of the output)', () => {
+    const engines = Object.fromEntries(
+      ['EPSG:32632', 'EPSG:3857', 'EPSG:3035', 'EPSG:2154', 'EPSG:3031', 'EPSG:27700', 'EPSG:28992', 'EPSG:4326'].map(
+        (code) => [code, createReprojection(resolveCrs(code)).engine],
+      ),
+    );
+    expect(engines).toEqual({
+      'EPSG:32632': 'transverse-mercator-series',
+      'EPSG:3857': 'mercator',
+      'EPSG:3035': 'lambert-azimuthal-equal-area',
+      'EPSG:2154': 'lambert-conformal-conic',
+      'EPSG:3031': 'polar-stereographic',
+      'EPSG:27700': 'helmert+transverse-mercator-series',
+      'EPSG:28992': 'helmert+proj4',
+      'EPSG:4326': 'geographic',
+    });
+  });
+
   it('lists the rows it could not convert and keeps NaN rows NaN without listing them', () => {
     const crs = resolveCrs('EPSG:3857');
     const r = createReprojection(crs).forward(Float64Array.of(0, Number.NaN, 0), Float64Array.of(0, 10, 90));
@@ -120,6 +138,14 @@ describe('createReprojection', () => {
       'EPSG:2154',
       'EPSG:27700',
       'EPSG:3031',
+      'EPSG:3413', // polar stereographic variant B, north
+      'EPSG:32661', // UPS North, polar stereographic variant A
+      'EPSG:3034', // LCC 2SP, ETRS89
+      'EPSG:2278', // LCC 2SP in US survey feet, NAD83 Texas South Central
+      'EPSG:28992', // oblique stereographic through proj4 after a 7-parameter Helmert shift
+      'EPSG:2056', // Swiss oblique Mercator through proj4 after a 3-parameter shift
+      'EPSG:4277', // geographic OSGB 1936: the Helmert shift alone
+      'EPSG:23031', // ED50 / UTM 31N: a 3-parameter shift before the Transverse Mercator series
     ];
     const run = shouldRunWith('/usr/bin/cs2cs');
     for (const code of codes) {
@@ -140,7 +166,15 @@ describe('createReprojection', () => {
         const input = Array.from(lon, (v, i) => `${v} ${lat[i]}`).join('\n');
         const out = runReferenceTool(
           '/usr/bin/cs2cs',
-          ['-f', '%.6f', '+proj=longlat', '+datum=WGS84', '+no_defs', '+to', ...crs.proj4.split(/\s+/)],
+          [
+            '-f',
+            crs.kind === 'geographic' ? '%.11f' : '%.6f',
+            '+proj=longlat',
+            '+datum=WGS84',
+            '+no_defs',
+            '+to',
+            ...crs.proj4.split(/\s+/),
+          ],
           `${input}\n`,
         )
           .trim()
@@ -154,7 +188,11 @@ describe('createReprojection', () => {
           const [x, y] = (out[i] as string).trim().split(/\s+/).map(Number) as [number, number];
           theirX[i] = x;
           theirY[i] = y;
-          worstForwardM = Math.max(worstForwardM, Math.hypot((ours.x[i] as number) - x, (ours.y[i] as number) - y));
+          const missM =
+            crs.kind === 'geographic'
+              ? inverseGeodesic(ours.y[i] as number, ours.x[i] as number, y, x).distanceM
+              : Math.hypot((ours.x[i] as number) - x, (ours.y[i] as number) - y);
+          worstForwardM = Math.max(worstForwardM, missM);
         }
         expect(worstForwardM).toBeLessThanOrEqual(0.001);
         const back = reprojection.inverse(theirX, theirY);

@@ -10,7 +10,17 @@ export interface ConformalLatitude {
   conformalTan(tau: number): number;
   /** tan(geodetic latitude) from tan(conformal latitude), by Newton's method. */
   geodeticTan(tauPrime: number): number;
+  /**
+   * Geodetic latitude (radians) from tan(conformal latitude), by a sine series whose coefficients
+   * are taken once from `geodeticTan` itself: the same values to about 1e-15 rad, several times faster.
+   */
+  geodeticLatitude(tauPrime: number): number;
 }
+
+/** Terms of the conformal → geodetic sine series; term j falls off like (e²/2)^j, so 8 reach double precision. */
+const SERIES_TERMS = 8;
+/** Samples of the discrete sine transform that yields the coefficients (exact for fewer terms than samples). */
+const SERIES_SAMPLES = 32;
 
 /** Builds the conformal-latitude conversions for an ellipsoid of eccentricity squared `e2` (0 for a sphere). */
 export function createConformalLatitude(e2: number): ConformalLatitude {
@@ -36,5 +46,32 @@ export function createConformalLatitude(e2: number): ConformalLatitude {
     }
     return tau;
   }
-  return { conformalTan, geodeticTan };
+  // φ − χ is odd with period π, so φ = χ + Σ c_j sin(2jχ); the c_j come from a discrete sine
+  // transform of the exact (Newton) values at 2χ = kπ/N, exact for a band-limited series.
+  const c = new Float64Array(SERIES_TERMS);
+  for (let k = 1; k < SERIES_SAMPLES; k++) {
+    const theta = (k * Math.PI) / SERIES_SAMPLES;
+    const chi = theta / 2;
+    const difference = Math.atan(geodeticTan(Math.tan(chi))) - chi;
+    for (let j = 0; j < SERIES_TERMS; j++)
+      c[j] = (c[j] as number) + (2 / SERIES_SAMPLES) * difference * Math.sin((j + 1) * theta);
+  }
+  function geodeticLatitude(tauPrime: number): number {
+    const chi = Math.atan(tauPrime);
+    if (e === 0 || !Number.isFinite(tauPrime)) return chi;
+    // sin 2χ and cos 2χ from tan χ, then Clenshaw's sum of c_j sin(2jχ).
+    const t2 = tauPrime * tauPrime;
+    const sin2 = (2 * tauPrime) / (1 + t2);
+    const cos2 = (1 - t2) / (1 + t2);
+    const twoCos = 2 * cos2;
+    let b1 = 0;
+    let b2 = 0;
+    for (let j = SERIES_TERMS - 1; j >= 0; j--) {
+      const b0 = (c[j] as number) + twoCos * b1 - b2;
+      b2 = b1;
+      b1 = b0;
+    }
+    return chi + b1 * sin2;
+  }
+  return { conformalTan, geodeticTan, geodeticLatitude };
 }

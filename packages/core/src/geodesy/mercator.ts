@@ -4,6 +4,7 @@
  * scale given): y is the isometric latitude, asinh of the conformal latitude's tangent. Columnar
  * fast path of reprojection; checked against PROJ and the GN7-2 examples in the tests.
  */
+import { normaliseLongitudeDeg, normaliseLongitudeRad } from '../model/units.js';
 import { createConformalLatitude } from './conformal-latitude.js';
 
 /** Parameters of one Mercator projection. */
@@ -33,15 +34,14 @@ const DEG = Math.PI / 180;
 /** Builds a Mercator projection. */
 export function createMercator(params: MercatorParams): Mercator {
   const { a, k0, falseEastingM, falseNorthingM } = params;
-  const { conformalTan, geodeticTan } = createConformalLatitude(params.e2);
+  const { conformalTan, geodeticLatitude } = createConformalLatitude(params.e2);
   const scale = a * k0;
   const lon0 = params.lon0Deg * DEG;
   return {
     forward(lonDeg, latDeg, eastingM, northingM) {
       const n = Math.min(lonDeg.length, latDeg.length);
       for (let i = 0; i < n; i++) {
-        let dLon = (lonDeg[i] as number) * DEG - lon0;
-        if (dLon < -Math.PI || dLon >= Math.PI) dLon -= 2 * Math.PI * Math.floor((dLon + Math.PI) / (2 * Math.PI));
+        const dLon = normaliseLongitudeRad((lonDeg[i] as number) * DEG - lon0);
         const lat = latDeg[i] as number;
         eastingM[i] = falseEastingM + scale * dLon;
         // tan(±90°) is finite in floating point; the poles are outside Mercator's domain.
@@ -55,10 +55,8 @@ export function createMercator(params: MercatorParams): Mercator {
       const n = Math.min(eastingM.length, northingM.length);
       for (let i = 0; i < n; i++) {
         const psi = ((northingM[i] as number) - falseNorthingM) / scale;
-        latDeg[i] = Math.atan(geodeticTan(Math.sinh(psi))) / DEG;
-        let lon = (lon0 + ((eastingM[i] as number) - falseEastingM) / scale) / DEG;
-        if (lon < -180 || lon >= 180) lon = ((((lon + 180) % 360) + 360) % 360) - 180;
-        lonDeg[i] = lon;
+        latDeg[i] = geodeticLatitude(Math.sinh(psi)) / DEG;
+        lonDeg[i] = normaliseLongitudeDeg((lon0 + ((eastingM[i] as number) - falseEastingM) / scale) / DEG);
       }
     },
   };

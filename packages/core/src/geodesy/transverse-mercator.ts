@@ -5,6 +5,7 @@
  * fast path of reprojection. Columnar and allocation-free in the loops.
  */
 
+import { normaliseLongitudeDeg, normaliseLongitudeRad } from '../model/units.js';
 import { createConformalLatitude } from './conformal-latitude.js';
 
 /** Parameters of one Transverse Mercator projection. */
@@ -69,7 +70,7 @@ export function createTransverseMercator(params: TransverseMercatorParams): Tran
   const lon0 = params.lon0Deg * DEG;
   const scale = k0 * rectifyingRadius;
 
-  const { conformalTan, geodeticTan } = createConformalLatitude(e2);
+  const { conformalTan, geodeticLatitude } = createConformalLatitude(e2);
 
   // Σ c_j sin(2jζ) for complex ζ = ξ + iη by Clenshaw summation (Karney 2011, eq. 41): four
   // elementary functions per point instead of twenty-four. Writes the real and imaginary parts.
@@ -97,9 +98,8 @@ export function createTransverseMercator(params: TransverseMercatorParams): Tran
 
   let northingOfOrigin = 0;
   function rawForward(latDeg: number, lonDeg: number, out: Float64Array): void {
-    let dLon = lonDeg * DEG - lon0;
     // Keep the longitude difference in [-π, π) so a frame near the antimeridian works.
-    if (dLon < -Math.PI || dLon >= Math.PI) dLon -= 2 * Math.PI * Math.floor((dLon + Math.PI) / (2 * Math.PI));
+    const dLon = normaliseLongitudeRad(lonDeg * DEG - lon0);
     const tauP = conformalTan(Math.tan(latDeg * DEG));
     const cosLon = Math.cos(dLon);
     const sinLon = Math.sin(dLon);
@@ -142,11 +142,8 @@ export function createTransverseMercator(params: TransverseMercatorParams): Tran
     const sinhEtaP = Math.sinh(etaP);
     const cosXiP = Math.cos(xiP);
     const tauP = Math.sin(xiP) / Math.sqrt(sinhEtaP * sinhEtaP + cosXiP * cosXiP);
-    const tau = geodeticTan(tauP);
-    out[0] = Math.atan(tau) / DEG;
-    let lonDeg = (lon0 + Math.atan2(sinhEtaP, cosXiP)) / DEG;
-    if (lonDeg < -180 || lonDeg >= 180) lonDeg = ((((lonDeg + 180) % 360) + 360) % 360) - 180;
-    out[1] = lonDeg;
+    out[0] = geodeticLatitude(tauP) / DEG;
+    out[1] = normaliseLongitudeDeg((lon0 + Math.atan2(sinhEtaP, cosXiP)) / DEG);
   }
 
   const scratch = new Float64Array(2);

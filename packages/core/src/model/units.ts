@@ -73,6 +73,12 @@ export function normaliseLongitudeDeg(deg: number): number {
   return wrapped - 180;
 }
 
+/** Wraps a longitude difference in radians into [−π, π); a value already inside comes back untouched. */
+export function normaliseLongitudeRad(rad: number): number {
+  if (rad >= -Math.PI && rad < Math.PI) return rad;
+  return rad - 2 * Math.PI * Math.floor((rad + Math.PI) / (2 * Math.PI));
+}
+
 const LENGTH_UNIT_WORDS: ReadonlyArray<readonly [RegExp, LengthUnit]> = [
   [/^(m|metres?|meters?)$/i, 'm'],
   [/^(km|kilomet(re|er)s?)$/i, 'km'],
