@@ -6,6 +6,8 @@ export { createDatabase } from './db.js';
 export { DEMO_ORGANISATION, DEMO_PASSWORD, DEMO_USERS, loadDemoData } from './demo/load-demo-data.js';
 export type { RouteSpec } from './http/route-table.js';
 export { createPgSessionStore } from './http/session-store.js';
+export type { Processing } from './jobs/start-processing.js';
+export { startProcessing } from './jobs/start-processing.js';
 export type { FakeSmtpServer, ReceivedMail } from './mail/fake-smtp-server.js';
 export { startFakeSmtpServer } from './mail/fake-smtp-server.js';
 export type { Mailer } from './mail/mailer.js';

@@ -104,6 +104,7 @@ const INTENDED_ACCESS: Record<string, string> = {
   'GET /organisations/:organisationId/projects/:projectId/dives/:diveId/report': 'viewer',
   'POST /organisations/:organisationId/projects/:projectId/dives/:diveId/reprocess': 'editor',
   'GET /organisations/:organisationId/projects/:projectId/dives/:diveId/results/:resultId/displacement': 'viewer',
+  'GET /organisations/:organisationId/projects/:projectId/dives/:diveId/results/:resultId/displacement': 'viewer',
   'GET /organisations/:organisationId/projects/:projectId/logs/:logId/runs': 'viewer',
   'POST /organisations/:organisationId/projects/:projectId/logs/:logId/reprocess': 'editor',
   'GET /organisations/:organisationId/projects/:projectId/dive-archive': 'viewer',

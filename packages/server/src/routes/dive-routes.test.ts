@@ -1,5 +1,5 @@
 import { execFileSync } from 'node:child_process';
-import { createHash } from 'node:crypto';
+import { createHash, randomUUID } from 'node:crypto';
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -258,12 +258,54 @@ describe('createDiveRoutes', () => {
     expect(resolved.headers['content-disposition']).toMatch(/-resolved\.csv"/);
   });
 
+  it('says how far a re-solve moved the positions from the run before, as core measured them', async () => {
+    const { results } = (await viewer.get(`${base}/dives/${diveId}`).expect(200)).body;
+    const [resolvedRun, firstRun] = results as Array<{
+      id: string;
+      resolveComparison: { movedM: Record<string, number> } | null;
+    }>;
+    if (resolvedRun === undefined || firstRun === undefined) throw new Error('two results expected');
+    const moved = await viewer.get(`${base}/dives/${diveId}/results/${resolvedRun.id}/displacement`).expect(200);
+    expect(moved.body).toMatchObject({ resultId: resolvedRun.id, againstResultId: firstRun.id });
+    // The run before audited the logged positions, so the distances must agree with core's own
+    // logged-to-re-solved comparison stored with the re-solve (an independent path through resolveTrack).
+    const core = resolvedRun.resolveComparison?.movedM ?? {};
+    expect(moved.body.comparedCount).toBe(core.comparedCount);
+    expect(moved.body.comparedCount).toBeGreaterThan(1000);
+    for (const key of ['medianM', 'p95M', 'maxM', 'meanM', 'rmsM'])
+      expect(Math.abs(moved.body[key] - (core[key] ?? Number.NaN))).toBeLessThan(1e-6);
+    // The simulated log was written with a wrong setup, so the true one moves every position somewhat.
+    expect(moved.body.medianM).toBeGreaterThan(0);
+    expect(moved.body.maxM).toBeGreaterThan(moved.body.medianM);
+    // Compared the other way round the distances are the same; against itself nothing moved.
+    const back = await viewer
+      .get(`${base}/dives/${diveId}/results/${firstRun.id}/displacement?against=${resolvedRun.id}`)
+      .expect(200);
+    expect(back.body.maxM).toBeCloseTo(moved.body.maxM, 9);
+    const itself = await viewer
+      .get(`${base}/dives/${diveId}/results/${resolvedRun.id}/displacement?against=${resolvedRun.id}`)
+      .expect(200);
+    expect(itself.body).toMatchObject({ medianM: 0, maxM: 0 });
+    // The first run has nothing before it; an unknown result is not found.
+    const none = await viewer.get(`${base}/dives/${diveId}/results/${firstRun.id}/displacement`).expect(404);
+    expect(none.body.error.message).toMatch(/first run/);
+    await viewer.get(`${base}/dives/${diveId}/results/${randomUUID()}/displacement`).expect(404);
+    await viewer.get(`${base}/dives/${diveId}/results/${firstRun.id}/displacement?against=nope`).expect(400);
+  });
+
   it("serves the web's dive view to members only, with columns as long as the audited track", async () => {
     const view = (await viewer.get(`/api/v1/dives/${diveId}`).expect(200)).body;
     const n = view.fixes.timeMs.length;
     expect(n).toBeGreaterThan(1000);
     for (const name of ['latDeg', 'lonDeg', 'depthM', 'severity']) expect(view.fixes[name]).toHaveLength(n);
-    expect(view).toMatchObject({ id: diveId, logFileName: log.name, projectName: 'Skarvfjord pipeline survey' });
+    expect(view).toMatchObject({
+      id: diveId,
+      logFileName: log.name,
+      projectName: 'Skarvfjord pipeline survey',
+      organisationId,
+      logId,
+    });
+    expect(view.resultId).toMatch(/^[0-9a-f-]{36}$/);
     expect(view.summary.fixCount).toBe(n);
     expect(view.s44.map((s: { order: string }) => s.order)).toEqual(['exclusive', 'special', '1a', '1b', '2']);
     for (const f of view.findings) expect(f.endIndex).toBeLessThan(n);

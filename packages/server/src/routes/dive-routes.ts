@@ -5,6 +5,7 @@ import { requireMembership } from '../http/authorise.js';
 import { AppError } from '../http/errors.js';
 import { defineRoute, type RouteSpec } from '../http/route-table.js';
 import {
+  compareDiveResults,
   type DiveDeps,
   diveFileName,
   downloadDiveReport,
@@ -94,6 +95,27 @@ const TrackQuery = z.object({
 const ReportQuery = z.object({
   format: z.enum(['json', 'md', 'html']).default('json'),
   resultId: UuidSchema.optional().describe("A former run's result; the latest by default"),
+});
+
+const ResultParams = DiveParams.extend({ resultId: UuidSchema });
+
+const DisplacementQuery = z.object({
+  against: UuidSchema.optional().describe('The result to compare with; by default the one just before'),
+});
+
+/** Metres; null when no fix had a position in both runs (JSON has no NaN). */
+const metres = z.number().nullable();
+
+const DisplacementSchema = z.object({
+  resultId: UuidSchema,
+  againstResultId: UuidSchema,
+  fixCount: z.number().int().describe('Fixes of the stored track'),
+  comparedCount: z.number().int().describe('Fixes with a position in both runs'),
+  medianM: metres,
+  p95M: metres,
+  maxM: metres,
+  meanM: metres,
+  rmsM: metres,
 });
 
 const ReprocessBody = z
@@ -352,6 +374,42 @@ export function createDiveRoutes(deps: DiveDeps): RouteSpec[] {
           request: body,
         });
         res.status(202).json({ run: runJson(run) });
+      },
+    }),
+    defineRoute({
+      method: 'get',
+      path: '/organisations/:organisationId/projects/:projectId/dives/:diveId/results/:resultId/displacement',
+      summary:
+        "How far a run moved the dive's positions from another run (by default the one before): horizontal geodesic distances per fix, summarised",
+      tag: 'Dives',
+      access: 'viewer',
+      params: ResultParams,
+      query: DisplacementQuery,
+      responses: {
+        200: { description: 'Median, 95th percentile, maximum, mean and RMS in metres', schema: DisplacementSchema },
+        404: { description: 'No such result, or the first run with nothing before it' },
+      },
+      async handler({ params, query, auth }, _req, res) {
+        const found = await compareDiveResults(deps, {
+          organisationId: requireMembership(auth).organisationId,
+          projectId: params.projectId,
+          diveId: params.diveId,
+          resultId: params.resultId,
+          ...(query.against === undefined ? {} : { againstResultId: query.against }),
+        });
+        const m = found.movement;
+        const finite = (v: number) => (Number.isFinite(v) ? v : null);
+        res.json({
+          resultId: found.resultId,
+          againstResultId: found.againstResultId,
+          fixCount: found.fixCount,
+          comparedCount: m.comparedCount,
+          medianM: finite(m.medianM),
+          p95M: finite(m.p95M),
+          maxM: finite(m.maxM),
+          meanM: finite(m.meanM),
+          rmsM: finite(m.rmsM),
+        });
       },
     }),
     defineRoute({

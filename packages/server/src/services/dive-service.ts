@@ -4,12 +4,15 @@ import {
   formatDiveReportHtml,
   formatDiveReportMarkdown,
   formatReportJson,
+  geodesicDistanceM,
   LeadlineError,
+  type MovementSummary,
   parseAuditSetup,
   parseResolveSetup,
   resolveAuditProfile,
   resolveTrack,
   smoothTrack,
+  summariseMovement,
   type Track,
 } from '@leadline/core';
 import { AppError } from '../http/errors.js';
@@ -345,4 +348,81 @@ export async function reprocessLog(
     );
   const hasDives = (await deps.dives.diveIdsOfLog(input.logId)).length > 0;
   return queueReprocess(deps, { ...input, project, diveId: null, kind: hasDives ? 'reprocess' : 'process' });
+}
+
+/** Per input fix, the position a result audited: the re-solved one when its run re-solved, else the logged one. */
+function positionsOf(
+  tracks: { vehicle: Track; surface: Track | undefined },
+  result: DiveResultRecord,
+): { latDeg: Float64Array; lonDeg: Float64Array } {
+  const { vehicle, surface } = tracks;
+  if (result.resolveSetup === null || result.resolveSetup === undefined)
+    return { latDeg: vehicle.columns.latDeg, lonDeg: vehicle.columns.lonDeg };
+  const resolved = unprocessable('setup', () =>
+    resolveTrack(vehicle, result.resolveSetup, surface === undefined ? {} : { surfaceTrack: surface }),
+  );
+  // Fixes the re-solve could not position stay NaN, so they are skipped rather than compared.
+  const latDeg = new Float64Array(vehicle.length).fill(Number.NaN);
+  const lonDeg = new Float64Array(vehicle.length).fill(Number.NaN);
+  for (let k = 0; k < resolved.sourceIndex.length; k++) {
+    const i = resolved.sourceIndex[k] as number;
+    latDeg[i] = resolved.track.columns.latDeg[k] as number;
+    lonDeg[i] = resolved.track.columns.lonDeg[k] as number;
+  }
+  return { latDeg, lonDeg };
+}
+
+/** How far one run moved a dive's positions from another run's, fix by fix. */
+export interface ResultDisplacement {
+  resultId: string;
+  againstResultId: string;
+  /** Fixes of the stored track. */
+  fixCount: number;
+  /** Horizontal geodesic distances (WGS 84) between the two runs' positions of the same fix, metres. */
+  movement: MovementSummary;
+}
+
+/**
+ * The horizontal displacement of a dive's positions between two of its results (by default the
+ * result and the one just before it): per stored fix, the geodesic distance between the position
+ * each run audited (re-solved or as logged); fixes either run could not position are skipped.
+ */
+export async function compareDiveResults(
+  deps: DiveDeps,
+  input: { organisationId: string; projectId: string; diveId: string; resultId: string; againstResultId?: string },
+): Promise<ResultDisplacement> {
+  const { dive } = await diveOf(deps, input.organisationId, input.projectId, input.diveId);
+  const results = await deps.dives.results(dive.id);
+  const at = results.findIndex((r) => r.id === input.resultId);
+  const result = results[at];
+  if (result === undefined) throw new AppError('not-found', `No result ${input.resultId} of dive ${dive.id}.`);
+  let against: DiveResultRecord | undefined;
+  if (input.againstResultId === undefined) {
+    // Results come newest first: the one before is the next in the list.
+    against = results[at + 1];
+    if (against === undefined)
+      throw new AppError(
+        'not-found',
+        `Result ${result.id} is the dive's first run: there is no earlier run to compare.`,
+      );
+  } else {
+    against = results.find((r) => r.id === input.againstResultId);
+    if (against === undefined)
+      throw new AppError('not-found', `No result ${input.againstResultId} of dive ${dive.id}.`);
+  }
+  const tracks = await deps.dives.tracks(dive.id);
+  if (tracks === undefined) throw new AppError('not-found', `Dive ${dive.id} has no stored fixes.`);
+  const a = positionsOf(tracks, result);
+  const b = positionsOf(tracks, against);
+  const n = tracks.vehicle.length;
+  const distancesM = new Float64Array(n).fill(Number.NaN);
+  for (let i = 0; i < n; i++) {
+    const latA = a.latDeg[i] as number;
+    const lonA = a.lonDeg[i] as number;
+    const latB = b.latDeg[i] as number;
+    const lonB = b.lonDeg[i] as number;
+    if (Number.isFinite(latA) && Number.isFinite(lonA) && Number.isFinite(latB) && Number.isFinite(lonB))
+      distancesM[i] = geodesicDistanceM(latA, lonA, latB, lonB);
+  }
+  return { resultId: result.id, againstResultId: against.id, fixCount: n, movement: summariseMovement(distancesM) };
 }

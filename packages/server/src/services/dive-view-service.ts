@@ -83,8 +83,11 @@ export async function getDiveView(
   return {
     id: dive.id,
     name: `Dive ${dive.diveNumber}${s.startTime === null ? '' : ` · ${s.startTime.slice(0, 16).replace('T', ' ')} UTC`}`,
+    organisationId: found.organisationId,
     projectId: dive.projectId,
     projectName: found.projectName,
+    logId: dive.logId,
+    resultId: result.id,
     site: found.site,
     vehicle: dive.trackName,
     logFileName: dive.logFileName,
