@@ -19,6 +19,7 @@ const TokensPage = lazy(() => import('./routes/tokens').then((m) => ({ default: 
 const MembersPage = lazy(() => import('./routes/members').then((m) => ({ default: m.MembersPage })));
 const DevMailboxPage = lazy(() => import('./routes/dev-mailbox').then((m) => ({ default: m.DevMailboxPage })));
 const UploadPage = lazy(() => import('./routes/upload').then((m) => ({ default: m.UploadPage })));
+const ProjectPage = lazy(() => import('./routes/project').then((m) => ({ default: m.ProjectPage })));
 const NotFoundPage = lazy(() => import('./routes/not-found').then((m) => ({ default: m.NotFoundPage })));
 
 /** The site's route table. */
@@ -37,6 +38,7 @@ export function createRouter() {
           element: <RequireSignIn />,
           children: [
             { path: '/dives/:diveId', element: <DivePage /> },
+            { path: '/projects/:projectId', element: <ProjectPage /> },
             { path: '/upload', element: <UploadPage /> },
             { path: '/tokens', element: <TokensPage /> },
             { path: '/members', element: <MembersPage /> },
