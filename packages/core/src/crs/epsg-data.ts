@@ -4,7 +4,6 @@
  * stays here. Single entries load on demand (`epsg-index/s/<code>.json`, a few kB each); the full
  * index (8 MB) loads only for search and area-of-use queries, once, on first use.
  */
-import { createRequire } from 'node:module';
 
 /** One record of the `epsg-index` package. */
 export interface EpsgRecord {
@@ -23,10 +22,22 @@ export interface EpsgRecord {
   accuracy?: number | null;
 }
 
-// Created on first use, so merely importing core (a browser bundle, for one) never needs node:module.
-let requireFromHere: NodeJS.Require | undefined;
-function packageRequire(): NodeJS.Require {
-  requireFromHere ??= createRequire(import.meta.url);
+/** A CommonJS `require` bound to this module, enough to load the package's JSON. */
+type PackageRequire = (id: string) => unknown;
+
+// Created on first use through `process.getBuiltinModule` (Node ≥ 20.16) rather than an import of
+// `node:module`, so merely importing core in a browser bundle (the web site uses its pure helpers)
+// needs neither Node's modules nor its types; calling these loaders outside Node throws.
+let requireFromHere: PackageRequire | undefined;
+function packageRequire(): PackageRequire {
+  if (requireFromHere === undefined) {
+    const nodeProcess = (globalThis as { process?: { getBuiltinModule?: (id: string) => unknown } }).process;
+    const nodeModule = nodeProcess?.getBuiltinModule?.('node:module') as
+      | { createRequire(url: string): PackageRequire }
+      | undefined;
+    if (nodeModule === undefined) throw new Error('The EPSG dataset loads only under Node.js (20.16 or later).');
+    requireFromHere = nodeModule.createRequire(import.meta.url);
+  }
   return requireFromHere;
 }
 const entryCache = new Map<string, EpsgRecord | null>();
