@@ -2,7 +2,8 @@
 // queryable; its stored fixes read back; its GeoJSON track served over loopback HTTP.
 // Runs against DATABASE_URL when set, else against a throwaway PostgreSQL it starts and stops.
 import { spawn } from 'node:child_process';
-import { mkdtempSync, rmSync } from 'node:fs';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { Session } from 'node:inspector/promises';
 import { createRequire } from 'node:module';
 import type { AddressInfo } from 'node:net';
 import { tmpdir } from 'node:os';
@@ -49,13 +50,17 @@ async function waitForRun(
   }
 }
 
-/** What autocannon measured. */
+/** What autocannon measured, and the CPU the server's process spent meanwhile. */
 interface LoadFigures {
+  /** CPU time (user + system, all threads) of this process per request: the load-independent cost. */
+  cpuMsPerRequest: number;
   requestsPerS: number;
   p50Ms: number;
   p99Ms: number;
   requests: number;
+  /** Errors, timeouts and 4xx/5xx answers. */
   failures: number;
+  notModified: number;
   bytesPerRequest: number;
 }
 
@@ -72,6 +77,7 @@ async function runAutocannon(
   const args = [cli, '--json', '-c', String(options.connections), '-d', String(options.seconds)];
   for (const [name, value] of Object.entries(headers)) args.push('-H', `${name}=${value}`);
   args.push(url);
+  const cpu0 = process.cpuUsage();
   const child = spawn(process.execPath, args, { stdio: ['ignore', 'pipe', 'pipe'] });
   let out = '';
   let err = '';
@@ -82,6 +88,7 @@ async function runAutocannon(
     err += chunk.toString();
   });
   const code = await new Promise<number | null>((resolve) => child.on('close', resolve));
+  const cpu = process.cpuUsage(cpu0);
   if (code !== 0) throw new Error(`autocannon exited ${code}: ${err.trim()}`);
   const result = JSON.parse(out) as {
     requests: { average: number; total: number };
@@ -89,14 +96,18 @@ async function runAutocannon(
     throughput: { total: number };
     errors: number;
     timeouts: number;
-    non2xx: number;
+    '3xx': number;
+    '4xx': number;
+    '5xx': number;
   };
   return {
+    cpuMsPerRequest: result.requests.total === 0 ? Number.NaN : (cpu.user + cpu.system) / 1000 / result.requests.total,
     requestsPerS: result.requests.average,
     p50Ms: result.latency.p50,
     p99Ms: result.latency.p99,
     requests: result.requests.total,
-    failures: result.errors + result.timeouts + result.non2xx,
+    failures: result.errors + result.timeouts + result['4xx'] + result['5xx'],
+    notModified: result['3xx'],
     bytesPerRequest: result.requests.total === 0 ? 0 : result.throughput.total / result.requests.total,
   };
 }
@@ -200,7 +211,28 @@ export async function runArchiveBench(): Promise<string> {
 
     // GET of its GeoJSON track: autocannon in its own process (the load must not share the server's
     // event loop), 10 connections on loopback for 10 s.
-    const steady = await runAutocannon(trackUrl, headers, { connections: 10, seconds: 10 });
+    // As browsers ask (gzip accepted), as a plain client asks (identity), and revalidating a copy held (304).
+    const gzipped = { ...headers, 'accept-encoding': 'gzip' };
+    // LEADLINE_BENCH_PROFILE=<folder> writes a CPU profile of the server during this run (track-get.cpuprofile).
+    const profileDir = process.env.LEADLINE_BENCH_PROFILE;
+    const profiler = profileDir === undefined ? undefined : new Session();
+    profiler?.connect();
+    await profiler?.post('Profiler.enable');
+    await profiler?.post('Profiler.start');
+    const steady = await runAutocannon(trackUrl, gzipped, { connections: 10, seconds: 10 });
+    if (profiler !== undefined && profileDir !== undefined) {
+      const { profile } = await profiler.post('Profiler.stop');
+      writeFileSync(join(profileDir, 'track-get.cpuprofile'), JSON.stringify(profile));
+      profiler.disconnect();
+    }
+    const identity = await runAutocannon(trackUrl, headers, { connections: 10, seconds: 10 });
+    const held = await fetch(trackUrl, { headers: gzipped });
+    await held.arrayBuffer();
+    const revalidate = await runAutocannon(
+      trackUrl,
+      { ...gzipped, 'if-none-match': held.headers.get('etag') ?? '' },
+      { connections: 10, seconds: 5 },
+    );
 
     // The same while the worker processes uploads: does a busy queue stall the API?
     const busyLogs = planSeason({ seed: 7208, dives: 4, diveMinutes: 120, dialect: 'csv' }).map((planned) => {
@@ -217,7 +249,7 @@ export async function runArchiveBench(): Promise<string> {
       };
       busyIds.push(uploaded.results[0]?.log.id ?? '');
     }
-    const busy = await runAutocannon(trackUrl, headers, { connections: 10, seconds: 5 });
+    const busy = await runAutocannon(trackUrl, gzipped, { connections: 10, seconds: 5 });
     for (const logId of busyIds) await waitForRun(`${base}/logs/${logId}/runs`, headers);
     server.close();
     await processing.stop();
@@ -230,8 +262,10 @@ export async function runArchiveBench(): Promise<string> {
       `processing run alone (read, split, audit, summarise, store): p50 ${f(percentile(workMs, 0.5))} ms, p95 ${f(percentile(workMs, 0.95))} ms`,
       `stored fixes read back: p50 ${percentile(readMs, 0.5).toFixed(1)} ms`,
       `GET GeoJSON track one at a time: p50 ${f(percentile(sequential, 0.5))} ms`,
-      `GET GeoJSON track (${(steady.bytesPerRequest / 1024).toFixed(0)} KiB), autocannon 10 connections 10 s: ${f(steady.requestsPerS)} req/s, p50 ${f(steady.p50Ms)} ms, p99 ${f(steady.p99Ms)} ms (${steady.requests} requests, ${steady.failures} failed)`,
-      `the same while 4 uploads are processed, 5 s: ${f(busy.requestsPerS)} req/s, p50 ${f(busy.p50Ms)} ms, p99 ${f(busy.p99Ms)} ms (${busy.failures} failed)`,
+      `GET GeoJSON track, gzip accepted (${(steady.bytesPerRequest / 1024).toFixed(0)} KiB sent), autocannon 10 connections 10 s: ${f(steady.requestsPerS)} req/s, p50 ${f(steady.p50Ms)} ms, p99 ${f(steady.p99Ms)} ms (${steady.requests} requests, ${steady.failures} failed), server CPU ${steady.cpuMsPerRequest.toFixed(2)} ms per request`,
+      `the same uncompressed (${(identity.bytesPerRequest / 1024).toFixed(0)} KiB): ${f(identity.requestsPerS)} req/s, p50 ${f(identity.p50Ms)} ms, p99 ${f(identity.p99Ms)} ms (${identity.failures} failed), server CPU ${identity.cpuMsPerRequest.toFixed(2)} ms per request`,
+      `revalidating with If-None-Match (304), 5 s: ${f(revalidate.requestsPerS)} req/s, p50 ${f(revalidate.p50Ms)} ms, p99 ${f(revalidate.p99Ms)} ms (${revalidate.notModified} of ${revalidate.requests} answered 304), server CPU ${revalidate.cpuMsPerRequest.toFixed(2)} ms per request`,
+      `gzip accepted while 4 uploads are processed, 5 s: ${f(busy.requestsPerS)} req/s, p50 ${f(busy.p50Ms)} ms, p99 ${f(busy.p99Ms)} ms (${busy.failures} failed)`,
     ].join('; ');
   } finally {
     await db.destroy();

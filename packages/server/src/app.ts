@@ -212,23 +212,27 @@ export function buildApp(deps: AppDependencies): BuiltApp {
 
   const api = express.Router();
   api.use(express.json({ limit: '1mb' }));
-  api.use(
-    session({
-      name: SESSION_COOKIE,
-      store: deps.sessionStore,
-      secret: deps.sessionSecret,
-      resave: false,
-      saveUninitialized: false,
-      rolling: true,
-      cookie: {
-        httpOnly: true,
-        sameSite: 'lax',
-        secure: deps.cookieSecure ?? false,
-        path: '/',
-        maxAge: 7 * 24 * 3600 * 1000,
-      },
-    }),
-  );
+  const sessions = session({
+    name: SESSION_COOKIE,
+    store: deps.sessionStore,
+    secret: deps.sessionSecret,
+    resave: false,
+    saveUninitialized: false,
+    rolling: true,
+    cookie: {
+      httpOnly: true,
+      sameSite: 'lax',
+      secure: deps.cookieSecure ?? false,
+      path: '/',
+      maxAge: 7 * 24 * 3600 * 1000,
+    },
+  });
+  // A read with an API token never touches the session (authentication goes by the token alone), so
+  // it skips the session's per-request work.
+  api.use((req, res, next) => {
+    if ((req.method === 'GET' || req.method === 'HEAD') && /^bearer\s/i.test(req.headers.authorization ?? '')) next();
+    else sessions(req, res, next);
+  });
   api.use(
     mountRoutes(routes, {
       users: ctx.users,

@@ -15,6 +15,7 @@ import {
   startJobBoss,
   startProcessingWorker,
 } from './processing-queue.js';
+import { createThreadCompute } from './processing-threads.js';
 
 /** The job queue of a process, with its worker when it runs one. */
 export interface Processing {
@@ -36,6 +37,8 @@ export async function startProcessing(options: {
   settings?: Partial<ProcessingJobSettings>;
   pollingIntervalS?: number;
   maintenanceIntervalS?: number;
+  /** Compute on worker threads (default) or, with `false`, on this thread's event loop. */
+  threads?: boolean;
   /** Mails failed-audit notices to the project's watchers; none are sent without it. */
   mail?: { mailer: Mailer; publicUrl: string };
 }): Promise<Processing> {
@@ -46,6 +49,15 @@ export async function startProcessing(options: {
   const runs = createKnexProcessingRunStore(options.db);
   const projects = createKnexProjectStore(options.db);
   const mail = options.mail;
+  // Read, split, audit and summarise run on a worker thread, so API requests are served meanwhile.
+  const compute = options.worker === false || options.threads === false ? undefined : createThreadCompute();
+  try {
+    await compute?.ready();
+  } catch (error) {
+    await compute?.close();
+    await boss.stop({ graceful: false });
+    throw error;
+  }
   const worker =
     options.worker === false
       ? undefined
@@ -56,6 +68,7 @@ export async function startProcessing(options: {
             logs: createKnexLogStore(options.db),
             runs,
             dives: createKnexDiveStore(options.db),
+            compute,
           },
           {
             ...(options.logger === undefined ? {} : { logger: options.logger }),
@@ -74,6 +87,7 @@ export async function startProcessing(options: {
     stop: async () => {
       await worker?.stop();
       await boss.stop({ graceful: true, wait: true, timeout: 5000 });
+      await compute?.close();
     },
   };
 }

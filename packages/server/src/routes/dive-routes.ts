@@ -4,6 +4,7 @@ import { z } from 'zod';
 import { requireMembership } from '../http/authorise.js';
 import { AppError } from '../http/errors.js';
 import { defineRoute, type RouteSpec } from '../http/route-table.js';
+import { sendPreparedFile } from '../http/send-prepared-file.js';
 import {
   compareDiveResults,
   type DiveDeps,
@@ -311,10 +312,15 @@ export function createDiveRoutes(deps: DiveDeps): RouteSpec[] {
       params: DiveParams,
       query: TrackQuery,
       responses: {
-        200: { description: 'The track file, as an attachment', contentType: 'application/octet-stream' },
+        200: {
+          description:
+            'The track file, as an attachment; gzipped when accepted; a strong ETag, and 304 when If-None-Match holds it',
+          contentType: 'application/octet-stream',
+        },
+        304: { description: 'Not modified: If-None-Match names the ETag of these bytes' },
         422: { description: 'A CRS with a format other than CSV, an unknown CRS, or no re-solve setup' },
       },
-      async handler({ params, query, auth }, _req, res) {
+      async handler({ params, query, auth }, req, res) {
         const file = await downloadDiveTrack(deps, {
           organisationId: requireMembership(auth).organisationId,
           projectId: params.projectId,
@@ -323,11 +329,9 @@ export function createDiveRoutes(deps: DiveDeps): RouteSpec[] {
           variant: query.variant,
           crs: query.crs,
         });
-        res.setHeader('Content-Type', file.contentType);
-        res.setHeader('Content-Disposition', attachment(file.fileName));
         if (file.crsNote !== undefined)
           res.setHeader('X-Leadline-Crs-Note', file.crsNote.replace(/[^\x20-\x7e]/g, '?'));
-        res.send(file.text);
+        sendPreparedFile(req, res, file, attachment(file.fileName));
       },
     }),
     defineRoute({
@@ -490,7 +494,7 @@ export function createDiveRoutes(deps: DiveDeps): RouteSpec[] {
             let name = file.fileName;
             if (used.has(name)) name = `${diveFileName(dive, 'raw')}-${dive.id.slice(0, 8)}.${query.format}`;
             used.add(name);
-            zip.addBuffer(Buffer.from(file.text), name, { mtime: dive.startTime ?? new Date(0) });
+            zip.addBuffer(file.body, name, { mtime: dive.startTime ?? new Date(0) });
           }
         } catch (error) {
           res.destroy(error instanceof Error ? error : new Error(String(error)));

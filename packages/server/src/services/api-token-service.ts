@@ -101,7 +101,7 @@ export async function authenticateApiToken(deps: Deps, token: string): Promise<T
   const now = deps.now();
   if (record === undefined || record.revokedAt !== null) return undefined;
   if (record.expiresAt !== null && record.expiresAt.getTime() <= now.getTime()) return undefined;
-  const role = await deps.users.roleOf(record.organisationId, record.userId);
+  const role = record.memberRole;
   if (role === undefined) return undefined;
   // "Last used" is kept to the minute: writing it on every request would make every pipeline call a
   // row update, and concurrent calls with one token would queue on that row.

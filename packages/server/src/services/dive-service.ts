@@ -23,6 +23,7 @@ import type { LogRecord, LogStore } from '../stores/log-store.js';
 import type { ProcessingRunStore, RunRecord } from '../stores/processing-run-store.js';
 import type { ProjectRecord, ProjectStore } from '../stores/project-store.js';
 import type { MembershipCheck } from './dive-view-service.js';
+import { type PreparedFile, prepareFile } from './prepared-file.js';
 import { auditSetupFromResolveSetup } from './processing-service.js';
 import type { RenderCache } from './render-cache.js';
 import { baseName, renderTracks, type TrackFormat } from './track-output.js';
@@ -38,17 +39,9 @@ export interface DiveDeps {
   queue?: ProcessingQueue | undefined;
   now: () => Date;
   /** Rendered track files by dive, result, format, variant and CRS (stored fixes never change). */
-  trackCache?: RenderCache<RenderedDiveTrack> | undefined;
+  trackCache?: RenderCache<PreparedFile> | undefined;
   /** Membership checks for the dive view outside an organisation's path. */
   membership?: MembershipCheck | undefined;
-}
-
-/** A dive's track rendered as a file. */
-export interface RenderedDiveTrack {
-  fileName: string;
-  contentType: string;
-  text: string;
-  crsNote: string | undefined;
 }
 
 /** Which positions a download holds: as logged, smoothed, or re-solved. */
@@ -187,7 +180,28 @@ async function variantTrack(
   return { vehicle: resolved.track, surface: tracks.surface };
 }
 
-/** A dive's track as a file: GPX, GeoJSON, CSV (optionally with a CRS) or KML; raw, cleaned or re-solved. */
+/** The cache key of a rendered track: raw fixes never change; cleaned and re-solved ones follow the latest result (and the project's setup). */
+function trackKey(
+  diveId: string,
+  input: { format: TrackFormat; variant: TrackVariant; crs?: string | undefined },
+  head: { latestResultId: string | null; defaultSetup: unknown; fileName: string },
+): string {
+  return [
+    diveId,
+    input.format,
+    input.variant,
+    input.crs?.toUpperCase() ?? '',
+    input.variant === 'raw' ? '' : head.latestResultId,
+    input.variant === 'resolved' ? JSON.stringify(head.defaultSetup) : '',
+    head.fileName,
+  ].join('|');
+}
+
+/**
+ * A dive's track as a file ready to send: GPX, GeoJSON, CSV (optionally with a CRS) or KML; raw,
+ * cleaned or re-solved. One indexed read names the file and keys the cache; the fixes are read and
+ * written only when the cache does not hold that rendering yet.
+ */
 export async function downloadDiveTrack(
   deps: DiveDeps,
   input: {
@@ -198,37 +212,43 @@ export async function downloadDiveTrack(
     variant: TrackVariant;
     crs?: string | undefined;
   },
-): Promise<RenderedDiveTrack> {
-  const { project, dive } = await diveOf(deps, input.organisationId, input.projectId, input.diveId);
-  // Raw fixes never change; cleaned and re-solved ones follow the latest result (and the project's setup).
-  const key = [
-    dive.id,
-    input.format,
-    input.variant,
-    input.crs?.toUpperCase() ?? '',
-    input.variant === 'raw' ? '' : dive.latestResultId,
-    input.variant === 'resolved' ? JSON.stringify(project.defaultSetup) : '',
-  ].join('|');
-  const cached = deps.trackCache?.get(key);
-  if (cached !== undefined) return cached;
-  const { vehicle, surface } = await variantTrack(deps, project, dive, input.variant);
-  const name = diveFileName(dive, input.variant);
-  const rendered = renderTracks(
-    { tracks: surface === undefined ? [vehicle] : [vehicle, surface], waypoints: [] },
-    { format: input.format, crs: input.crs, name, nowMs: deps.now().getTime() },
-  );
-  const file = {
-    fileName: `${name}.${rendered.extension}`,
-    contentType: rendered.contentType,
-    text: rendered.text,
-    crsNote: rendered.crsNote,
+): Promise<PreparedFile> {
+  const head = await deps.dives.trackHead(input.organisationId, input.projectId, input.diveId);
+  if (head === undefined) {
+    await diveOf(deps, input.organisationId, input.projectId, input.diveId); // says whether the project or the dive is missing
+    throw new AppError('not-found', `No dive ${input.diveId} in this project.`);
+  }
+  const render = async () => {
+    const { project, dive } = await diveOf(deps, input.organisationId, input.projectId, input.diveId);
+    const { vehicle, surface } = await variantTrack(deps, project, dive, input.variant);
+    const name = diveFileName(dive, input.variant);
+    const rendered = renderTracks(
+      { tracks: surface === undefined ? [vehicle] : [vehicle, surface], waypoints: [] },
+      { format: input.format, crs: input.crs, name, nowMs: deps.now().getTime() },
+    );
+    const fileName = `${name}.${rendered.extension}`;
+    const value = await prepareFile({
+      fileName,
+      contentType: rendered.contentType,
+      text: rendered.text,
+      crsNote: rendered.crsNote,
+    });
+    // Keyed by what was rendered, should a new run have landed since the head was read.
+    const key = trackKey(dive.id, input, {
+      latestResultId: dive.latestResultId,
+      defaultSetup: project.defaultSetup,
+      fileName,
+    });
+    return { key, value };
   };
-  deps.trackCache?.set(key, file);
-  return file;
+  const fileName = `${diveFileName(head, input.variant)}.${input.format}`;
+  const key = trackKey(input.diveId, input, { ...head, fileName });
+  if (deps.trackCache === undefined) return (await render()).value;
+  return deps.trackCache.getOrCreate(key, render);
 }
 
 /** `<log name>-dive-<nn>[-cleaned|-resolved]`. */
-export function diveFileName(dive: DiveRecord, variant: TrackVariant): string {
+export function diveFileName(dive: Pick<DiveRecord, 'logFileName' | 'diveNumber'>, variant: TrackVariant): string {
   const suffix = variant === 'raw' ? '' : `-${variant}`;
   return `${baseName(dive.logFileName)}-dive-${String(dive.diveNumber).padStart(2, '0')}${suffix}`;
 }

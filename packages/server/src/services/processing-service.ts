@@ -1,25 +1,34 @@
-import {
-  type AuditProfile,
-  type AuditSetup,
-  auditTrack,
-  buildDiveReport,
-  formatRejection,
-  InvalidArgumentError,
-  LeadlineError,
-  parseAuditSetup,
-  parseResolveSetup,
-  readLog,
-  resolveAuditProfile,
-  resolveTrack,
-  splitDives,
-  type Track,
-  takeFixes,
-} from '@leadline/core';
+import { parseResolveSetup } from '@leadline/core';
 import type { DiveStore, NewDive, NewDiveResult } from '../stores/dive-store.js';
 import type { LogStore } from '../stores/log-store.js';
 import type { ProcessingRunStore, RunRecord } from '../stores/processing-run-store.js';
 import type { ProjectStore } from '../stores/project-store.js';
 import type { FailedAudit } from './audit-notice-service.js';
+import {
+  type ComputeOutcome,
+  computeProcess,
+  computeReprocess,
+  PermanentProcessingError,
+  type ProcessInput,
+  type ReprocessedDive,
+  type ReprocessInput,
+} from './processing-compute.js';
+
+export { computeDiveResult, PermanentProcessingError } from './processing-compute.js';
+
+/** Where the CPU-heavy part of a run is done: in this thread, or on worker threads (jobs/processing-threads.ts). */
+export interface ProcessingCompute {
+  process(input: ProcessInput): Promise<ComputeOutcome<NewDive[]>>;
+  reprocess(input: ReprocessInput): Promise<ComputeOutcome<ReprocessedDive[]>>;
+  close(): Promise<void>;
+}
+
+/** Does the work in the calling thread (tests, tools; the event loop is busy meanwhile). */
+export const IN_THREAD_COMPUTE: ProcessingCompute = {
+  process: async (input) => computeProcess(input),
+  reprocess: async (input) => computeReprocess(input),
+  close: async () => {},
+};
 
 /** What processing reaches: the archive and the stores of runs and dives. */
 export interface ProcessingDeps {
@@ -27,16 +36,13 @@ export interface ProcessingDeps {
   logs: LogStore;
   runs: ProcessingRunStore;
   dives: DiveStore;
+  /** Where read, split, audit and summarise run; in this thread when absent. */
+  compute?: ProcessingCompute | undefined;
 }
 
 /** Test hooks: called between the work and the store (to stop a worker mid-job). */
 export interface ProcessingHooks {
   beforeStore?: (run: RunRecord) => Promise<void>;
-}
-
-/** A failure that another attempt cannot fix (an unreadable log, an unknown profile): the run fails at once. */
-export class PermanentProcessingError extends Error {
-  override readonly name = 'PermanentProcessingError';
 }
 
 /** How a run ended when the worker is done with it; `failedAudits` are the dives whose verdict is fail. */
@@ -74,84 +80,9 @@ export function auditSetupFromResolveSetup(setup: unknown): Record<string, unkno
   }
 }
 
-function permanent<T>(what: string, work: () => T): T {
-  try {
-    return work();
-  } catch (error) {
-    if (error instanceof LeadlineError || error instanceof InvalidArgumentError)
-      throw new PermanentProcessingError(`${what}: ${error.message}`);
-    throw error;
-  }
-}
-
-/** Audits (after re-solving, when the run has a re-solve setup) one dive's track and builds its result. */
-export function computeDiveResult(input: {
-  fileName: string;
-  vehicle: Track;
-  surface: Track | undefined;
-  profile: AuditProfile;
-  auditSetup: AuditSetup;
-  resolveSetup: unknown;
-}): { result: NewDiveResult; audited: Track } {
-  let audited = input.vehicle;
-  let resolveComparison: unknown = null;
-  let resolveSetup: unknown = null;
-  if (input.resolveSetup !== null && input.resolveSetup !== undefined) {
-    const resolved = permanent(`re-solving ${input.vehicle.id}`, () =>
-      resolveTrack(input.vehicle, input.resolveSetup, {
-        ...(input.surface === undefined ? {} : { surfaceTrack: input.surface }),
-        auditProfile: input.profile,
-        auditSetup: input.auditSetup,
-      }),
-    );
-    audited = resolved.track;
-    resolveSetup = resolved.setup;
-    resolveComparison = {
-      fixCount: resolved.comparison.fixCount,
-      resolvedCount: resolved.comparison.resolvedCount,
-      rejectedCount: resolved.comparison.rejectedCount,
-      movedM: resolved.comparison.summary,
-      audit: resolved.comparison.audit,
-      applied: resolved.applied,
-      rejections: resolved.rejections
-        .slice(0, 100)
-        .map((r) => ({ line: r.line, reason: r.reason, message: r.message })),
-    };
-  }
-  const audit = auditTrack(audited, { profile: input.profile, setup: input.auditSetup });
-  const report = buildDiveReport(
-    input.surface === undefined
-      ? { file: input.fileName, track: audited, audit }
-      : { file: input.fileName, track: audited, audit, surface: input.surface },
-  );
-  return {
-    audited,
-    result: {
-      verdict: audit.verdict,
-      auditProfile: audit.profile,
-      resolveSetup,
-      auditSetup: input.auditSetup as Record<string, unknown>,
-      summary: report.summary,
-      report,
-      resolveComparison,
-      flags: audit.flags,
-      flaggedCount: audit.flaggedCount,
-      findings: audit.findings,
-    },
-  };
-}
-
-/** The surface unit's fixes within a dive's time span. */
-function surfaceDuring(surface: Track | undefined, vehicle: Track): Track | undefined {
-  if (surface === undefined || vehicle.length === 0) return undefined;
-  const from = vehicle.columns.timeMs[0] as number;
-  const to = vehicle.columns.timeMs[vehicle.length - 1] as number;
-  const keep = new Uint8Array(surface.length);
-  for (let i = 0; i < surface.length; i++) {
-    const t = surface.columns.timeMs[i] as number;
-    keep[i] = t >= from && t <= to ? 1 : 0;
-  }
-  return takeFixes(surface, keep, { id: `${vehicle.id}#surface` });
+function settled<T>(outcome: ComputeOutcome<T>): T {
+  if (!outcome.ok) throw new PermanentProcessingError(outcome.permanent);
+  return outcome.value;
 }
 
 /**
@@ -173,44 +104,21 @@ export async function performRun(
   const log = await deps.logs.find(run.projectId, run.logId);
   if (project === undefined || log === undefined)
     throw new PermanentProcessingError('the log or its project was deleted before it was processed');
-  const profile = permanent('audit profile', () => resolveAuditProfile(run.auditProfile));
-  const auditSetup = permanent('audit setup', () => parseAuditSetup(run.auditSetup));
+  const compute = deps.compute ?? IN_THREAD_COMPUTE;
+  const settings = { auditProfile: run.auditProfile, auditSetup: run.auditSetup, resolveSetup: run.resolveSetup };
 
   if (run.kind === 'process') {
     const content = await deps.logs.content(run.projectId, run.logId);
     if (content === undefined) throw new PermanentProcessingError('the log was deleted before it was processed');
-    const read = permanent('reading the log', () =>
-      // Local times are read in the project's zone, projected coordinates in the project's CRS.
-      readLog(
-        { fileName: log.originalFileName, content },
-        {
-          timeZone: project.timeZone,
-          ...(project.defaultCrs === null ? {} : { inputCrs: project.defaultCrs }),
-        },
-      ),
+    const dives = settled(
+      await compute.process({
+        ...settings,
+        fileName: log.originalFileName,
+        content,
+        timeZone: project.timeZone,
+        inputCrs: project.defaultCrs,
+      }),
     );
-    const vehicles = read.tracks.filter((t) => t.role === 'vehicle');
-    const surface = read.tracks.find((t) => t.role === 'surface');
-    if (vehicles.length === 0 && surface === undefined) {
-      const why = read.rejections[0] === undefined ? 'the log holds no track' : formatRejection(read.rejections[0]);
-      throw new PermanentProcessingError(`nothing to process: ${why}`);
-    }
-    const dives: NewDive[] = [];
-    for (const vehicle of vehicles) {
-      const parts = splitDives(vehicle, profile).dives.map((d) => d.track);
-      for (const track of parts.length > 0 ? parts : [vehicle]) {
-        const diveSurface = surfaceDuring(surface, track);
-        const { result } = computeDiveResult({
-          fileName: log.originalFileName,
-          vehicle: track,
-          surface: diveSurface,
-          profile,
-          auditSetup,
-          resolveSetup: run.resolveSetup,
-        });
-        dives.push({ diveNumber: dives.length + 1, vehicle: track, surface: diveSurface, result });
-      }
-    }
     await hooks.beforeStore?.(run);
     const ids = await deps.dives.storeProcessed(run.id, run.logId, run.projectId, dives);
     if (ids === undefined) return { status: 'skipped' };
@@ -223,18 +131,15 @@ export async function performRun(
   }
 
   const diveIds = run.diveId === null ? await deps.dives.diveIdsOfLog(run.logId) : [run.diveId];
-  const results: Array<{ diveId: string; diveNumber: number; result: NewDiveResult }> = [];
-  for (const [k, diveId] of diveIds.entries()) {
+  const inputs: ReprocessInput['dives'] = [];
+  for (const diveId of diveIds) {
     const tracks = await deps.dives.tracks(diveId);
     if (tracks === undefined) throw new PermanentProcessingError(`dive ${diveId} has no stored fixes`);
-    const { result } = computeDiveResult({
-      fileName: log.originalFileName,
-      vehicle: tracks.vehicle,
-      surface: tracks.surface,
-      profile,
-      auditSetup,
-      resolveSetup: run.resolveSetup,
-    });
+    inputs.push({ diveId, vehicle: tracks.vehicle, surface: tracks.surface });
+  }
+  const computed = settled(await compute.reprocess({ ...settings, fileName: log.originalFileName, dives: inputs }));
+  const results: Array<{ diveId: string; diveNumber: number; result: NewDiveResult }> = [];
+  for (const [k, { diveId, result }] of computed.entries()) {
     const diveNumber = run.diveId === null ? k + 1 : ((await deps.dives.find(run.projectId, diveId))?.diveNumber ?? 0);
     results.push({ diveId, diveNumber, result });
   }

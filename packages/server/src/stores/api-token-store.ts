@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import type { Role } from '../services/roles.js';
 
 /** Read or read and write; a read token never changes anything. */
 export type TokenScope = 'read' | 'read-write';
@@ -28,7 +29,8 @@ export interface ApiTokenStore {
     scope: TokenScope;
     expiresAt: Date | null;
   }): Promise<ApiTokenRecord>;
-  findBySecretHash(secretHash: string): Promise<ApiTokenRecord | undefined>;
+  /** A token by its secret's hash, with its user's current role in its organisation (`undefined` once they left). */
+  findBySecretHash(secretHash: string): Promise<(ApiTokenRecord & { memberRole: Role | undefined }) | undefined>;
   findById(organisationId: string, id: string): Promise<ApiTokenRecord | undefined>;
   /** Tokens of an organisation, of one user when `userId` is given; newest first. */
   list(organisationId: string, userId?: string): Promise<ApiTokenRecord[]>;
@@ -77,6 +79,10 @@ const COLUMNS: string[] = [
   'created_at',
 ];
 
+const BY_SECRET_HASH_SQL = `select ${COLUMNS.map((c) => `t.${c}`).join(', ')}, m.role as member_role
+  from api_tokens t left join memberships m on m.organisation_id = t.organisation_id and m.user_id = t.user_id
+  where t.secret_hash = ?`;
+
 /** The PostgreSQL implementation. */
 export function createKnexApiTokenStore(db: Knex): ApiTokenStore {
   return {
@@ -96,8 +102,12 @@ export function createKnexApiTokenStore(db: Knex): ApiTokenStore {
       return toRecord(row);
     },
     async findBySecretHash(secretHash) {
-      const row: TokenRow | undefined = await db('api_tokens').where({ secret_hash: secretHash }).first(COLUMNS);
-      return row === undefined ? undefined : toRecord(row);
+      // One indexed read per API request, in plain SQL: the token and its user's membership together.
+      const { rows } = await db.raw<{ rows: Array<TokenRow & { member_role: Role | null }> }>(BY_SECRET_HASH_SQL, [
+        secretHash,
+      ]);
+      const row = rows[0];
+      return row === undefined ? undefined : { ...toRecord(row), memberRole: row.member_role ?? undefined };
     },
     async findById(organisationId, id) {
       const row: TokenRow | undefined = await db('api_tokens')

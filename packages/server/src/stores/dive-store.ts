@@ -40,6 +40,14 @@ export interface DiveResultRecord {
   createdAt: Date;
 }
 
+/** What a track download's cache key is made of (see `DiveStore.trackHead`). */
+export interface TrackHead {
+  latestResultId: string | null;
+  diveNumber: number;
+  logFileName: string;
+  defaultSetup: unknown;
+}
+
 /** A result to store. */
 export interface NewDiveResult {
   verdict: Verdict;
@@ -118,6 +126,11 @@ export interface DiveStore {
     | undefined
   >;
   diveIdsOfLog(logId: string): Promise<string[]>;
+  /**
+   * What names a rendered track file, in one indexed read: the dive's latest result, number and log
+   * name, and its project's default setup; `undefined` unless the dive is in that organisation's project.
+   */
+  trackHead(organisationId: string, projectId: string, diveId: string): Promise<TrackHead | undefined>;
   tracks(diveId: string): Promise<{ vehicle: Track; surface: Track | undefined } | undefined>;
   /** A dive's results, newest first. */
   results(diveId: string): Promise<DiveResultRecord[]>;
@@ -339,6 +352,10 @@ function searchText(fileName: string, trackName: string, result: NewDiveResult):
   return `${text} ${text.replace(/[^\p{L}\p{N}]+/gu, ' ')}`;
 }
 
+const TRACK_HEAD_SQL = `select d.latest_result_id, d.dive_number, l.original_file_name, p.default_setup
+  from dives d join logs l on l.id = d.log_id join projects p on p.id = d.project_id
+  where d.id = ? and d.project_id = ? and p.organisation_id = ?`;
+
 /** The PostgreSQL implementation. */
 export function createKnexDiveStore(db: Knex): DiveStore {
   const base = () => db('dives as d').join('logs as l', 'l.id', 'd.log_id');
@@ -468,6 +485,25 @@ export function createKnexDiveStore(db: Knex): DiveStore {
         .orderBy('dive_number')
         .select('id');
       return rows.map((r) => r.id);
+    },
+    async trackHead(organisationId, projectId, diveId) {
+      // Plain SQL: this read runs on every track download (the query builder costs more than the query).
+      const { rows } = await db.raw<{
+        rows: Array<{
+          latest_result_id: string | null;
+          dive_number: number;
+          original_file_name: string;
+          default_setup: unknown;
+        }>;
+      }>(TRACK_HEAD_SQL, [diveId, projectId, organisationId]);
+      const row = rows[0];
+      if (row === undefined) return undefined;
+      return {
+        latestResultId: row.latest_result_id,
+        diveNumber: row.dive_number,
+        logFileName: row.original_file_name,
+        defaultSetup: row.default_setup,
+      };
     },
     async tracks(diveId) {
       const rows: Array<{
