@@ -165,6 +165,8 @@ export class FastCsvRowReader {
           target[k] = t;
         } else {
           let v = parseDecimal(text, start, end, this.#decimalMark2);
+          if (Number.isNaN(v) && (kind === KIND_LAT || kind === KIND_LON))
+            v = parseDegreeSymbols(text, start, end, this.#decimalMark2, kind === KIND_LAT);
           if (Number.isNaN(v)) return false;
           if (kind === KIND_LAT) {
             if (v < -90 || v > 90) return false;
@@ -252,6 +254,56 @@ function digits(s: string, start: number, count: number): number {
   for (let i = start; i < start + count; i++) {
     const d = s.charCodeAt(i) - 48;
     if (d < 0 || d > 9) return -1;
+    value = value * 10 + d;
+  }
+  return value;
+}
+
+/**
+ * Degrees and minutes, or degrees, minutes and seconds, written with symbols and a hemisphere letter
+ * after them (`59°01.23457'N`, `005°28'07.407"E`) between `start` and `end`, or `NaN` (the general
+ * path then reads or rejects the cell). Only the last component has decimals; minutes and seconds
+ * below 60. The same value as `parseCoordinate`: sign × (degrees + minutes / 60 + seconds / 3600).
+ */
+export function parseDegreeSymbols(s: string, start: number, end: number, decimalMark2: number, lat: boolean): number {
+  const letter = s.charCodeAt(end - 1);
+  let sign: number;
+  if (lat)
+    sign = letter === 78 ? 1 : letter === 83 ? -1 : 0; // N, S
+  else sign = letter === 69 ? 1 : letter === 87 ? -1 : 0; // E, W
+  if (sign === 0) return Number.NaN;
+  const degreeAt = s.indexOf('°', start);
+  if (degreeAt <= start || degreeAt >= end) return Number.NaN;
+  const minuteAt = s.indexOf("'", degreeAt);
+  if (minuteAt <= degreeAt + 1 || minuteAt >= end) return Number.NaN;
+  const deg = parseDigits(s, start, degreeAt);
+  let min: number;
+  let sec = 0;
+  if (minuteAt === end - 2) {
+    min = parseDecimal(s, degreeAt + 1, minuteAt, decimalMark2);
+  } else {
+    // seconds: `'`, the number, `"`, the letter
+    if (s.charCodeAt(end - 2) !== 34 || end - 2 <= minuteAt + 1) return Number.NaN;
+    min = parseDigits(s, degreeAt + 1, minuteAt);
+    sec = parseDecimal(s, minuteAt + 1, end - 2, decimalMark2);
+  }
+  // a decimal mark must have digits after it (`01.'` is not a number)
+  const last = s.charCodeAt(minuteAt === end - 2 ? minuteAt - 1 : end - 3);
+  if (last < 48 || last > 57) return Number.NaN;
+  const first = s.charCodeAt(degreeAt + 1);
+  if (first === 43 || first === 45 || s.charCodeAt(minuteAt + 1) === 43 || s.charCodeAt(minuteAt + 1) === 45)
+    return Number.NaN;
+  if (!(deg >= 0) || !(min >= 0 && min < 60) || !(sec >= 0 && sec < 60)) return Number.NaN;
+  return sign * (deg + min / 60 + sec / 3600);
+}
+
+/** Plain digits (no sign, no decimals, at most 15) between `start` and `end`, or `NaN`. */
+function parseDigits(s: string, start: number, end: number): number {
+  if (end <= start || end - start > 15) return Number.NaN;
+  let value = 0;
+  for (let i = start; i < end; i++) {
+    const d = s.charCodeAt(i) - 48;
+    if (d < 0 || d > 9) return Number.NaN;
     value = value * 10 + d;
   }
   return value;
