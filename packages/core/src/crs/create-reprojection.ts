@@ -170,13 +170,18 @@ interface Proj4Projection {
   inverse(point: { x: number; y: number }): { x: number; y: number } | undefined;
 }
 
+/** A point within this many metres (each axis) of the previous one starts from it (a track). */
+const CONTINUE_WITHIN_M = 100;
+/** A track's predicted start missing by more than this (m) is replaced by proj4's inverse. */
+const PREDICTION_TRUSTED_M = 0.01;
 /** A Jacobian is reused for points within this many degrees of where it was taken (tracks move slowly). */
 const JACOBIAN_REUSE_DEG = 0.01;
 
 // Any other projection method, through proj4's own projection object called directly (radians in
 // and out, no per-point datum or axis handling), on columns. Some proj4 inverses are series good
 // to a few millimetres; one Newton step on the exact forward brings them to the forward's accuracy,
-// with the Jacobian reused between neighbouring points.
+// with the Jacobian reused between neighbouring points. Along a track the inverse starts from the
+// previous point instead of calling proj4's inverse, so a point usually costs one forward.
 function createProj4Projection(proj: Proj4Projection): ColumnarProjection {
   const point = { x: 0, y: 0 };
   function forwardAt(lonDeg: number, latDeg: number, out: Float64Array): void {
@@ -192,9 +197,25 @@ function createProj4Projection(proj: Proj4Projection): ColumnarProjection {
     out[1] = r === undefined ? Number.NaN : r.y;
   }
   const f = new Float64Array(2);
+  const f0 = new Float64Array(2);
   const fLon = new Float64Array(2);
   const fLat = new Float64Array(2);
   const jacobian = { lon: Number.NaN, lat: Number.NaN, j11: 0, j12: 0, j21: 0, j22: 0 };
+  const jacobianHolds = (lon: number, lat: number) =>
+    Math.abs(lon - jacobian.lon) < JACOBIAN_REUSE_DEG && Math.abs(lat - jacobian.lat) < JACOBIAN_REUSE_DEG;
+  // ∂(x, y)/∂(lon, lat) in metres per degree, by forward differences.
+  function takeJacobian(lon: number, lat: number): void {
+    const h = 1e-7;
+    forwardAt(lon, lat, f0);
+    forwardAt(lon + h, lat, fLon);
+    forwardAt(lon, lat + h, fLat);
+    jacobian.lon = lon;
+    jacobian.lat = lat;
+    jacobian.j11 = ((fLon[0] as number) - (f0[0] as number)) / h;
+    jacobian.j21 = ((fLon[1] as number) - (f0[1] as number)) / h;
+    jacobian.j12 = ((fLat[0] as number) - (f0[0] as number)) / h;
+    jacobian.j22 = ((fLat[1] as number) - (f0[1] as number)) / h;
+  }
   return {
     forward(lonDeg, latDeg, x, y) {
       const n = Math.min(lonDeg.length, latDeg.length);
@@ -206,41 +227,64 @@ function createProj4Projection(proj: Proj4Projection): ColumnarProjection {
     },
     inverse(x, y, lonDeg, latDeg) {
       const n = Math.min(x.length, y.length);
+      let previousX = Number.NaN;
+      let previousY = Number.NaN;
+      let previousLon = Number.NaN;
+      let previousLat = Number.NaN;
       for (let i = 0; i < n; i++) {
         const targetX = x[i] as number;
         const targetY = y[i] as number;
-        point.x = targetX;
-        point.y = targetY;
-        let r: { x: number; y: number } | undefined;
-        try {
-          r = Number.isNaN(targetX) || Number.isNaN(targetY) ? undefined : proj.inverse(point);
-        } catch {
-          r = undefined;
+        let lon = Number.NaN;
+        let lat = Number.NaN;
+        const dx = targetX - previousX;
+        const dy = targetY - previousY;
+        let rx = Number.NaN;
+        let ry = Number.NaN;
+        if (
+          Math.abs(dx) < CONTINUE_WITHIN_M &&
+          Math.abs(dy) < CONTINUE_WITHIN_M &&
+          jacobianHolds(previousLon, previousLat)
+        ) {
+          // A track: start from the previous point moved by the Jacobian (off by micrometres to a
+          // millimetre within 100 m), instead of proj4's inverse, which is often an iteration itself.
+          const { j11, j12, j21, j22 } = jacobian;
+          const det = j11 * j22 - j12 * j21;
+          lon = previousLon + (j22 * dx - j12 * dy) / det;
+          lat = previousLat + (j11 * dy - j21 * dx) / det;
+          forwardAt(lon, lat, f);
+          rx = targetX - (f[0] as number);
+          ry = targetY - (f[1] as number);
         }
-        if (r === undefined || !Number.isFinite(r.x) || !Number.isFinite(r.y)) {
+        // Not on a track, or the prediction missed by a centimetre or more (a seam of the projection):
+        // proj4's own inverse.
+        if (!(Math.abs(rx) < PREDICTION_TRUSTED_M && Math.abs(ry) < PREDICTION_TRUSTED_M)) {
+          lon = Number.NaN;
+          lat = Number.NaN;
+          point.x = targetX;
+          point.y = targetY;
+          let r: { x: number; y: number } | undefined;
+          try {
+            r = Number.isNaN(targetX) || Number.isNaN(targetY) ? undefined : proj.inverse(point);
+          } catch {
+            r = undefined;
+          }
+          if (r !== undefined) {
+            lon = normaliseLongitudeDeg(r.x * RAD_TO_DEG);
+            lat = r.y * RAD_TO_DEG;
+            forwardAt(lon, lat, f);
+            rx = targetX - (f[0] as number);
+            ry = targetY - (f[1] as number);
+          }
+        }
+        if (!Number.isFinite(lon) || !Number.isFinite(lat)) {
           lonDeg[i] = Number.NaN;
           latDeg[i] = Number.NaN;
+          previousX = Number.NaN;
           continue;
         }
-        let lon = normaliseLongitudeDeg(r.x * RAD_TO_DEG);
-        let lat = r.y * RAD_TO_DEG;
-        forwardAt(lon, lat, f);
-        const rx = targetX - (f[0] as number);
-        const ry = targetY - (f[1] as number);
+        // One Newton step on the exact forward where the start misses by 10 µm or more.
         if (Number.isFinite(rx) && Number.isFinite(ry) && Math.sqrt(rx * rx + ry * ry) >= POLISH_BELOW_M) {
-          if (
-            !(Math.abs(lon - jacobian.lon) < JACOBIAN_REUSE_DEG && Math.abs(lat - jacobian.lat) < JACOBIAN_REUSE_DEG)
-          ) {
-            const h = 1e-7;
-            forwardAt(lon + h, lat, fLon);
-            forwardAt(lon, lat + h, fLat);
-            jacobian.lon = lon;
-            jacobian.lat = lat;
-            jacobian.j11 = ((fLon[0] as number) - (f[0] as number)) / h;
-            jacobian.j21 = ((fLon[1] as number) - (f[1] as number)) / h;
-            jacobian.j12 = ((fLat[0] as number) - (f[0] as number)) / h;
-            jacobian.j22 = ((fLat[1] as number) - (f[1] as number)) / h;
-          }
+          if (!jacobianHolds(lon, lat)) takeJacobian(lon, lat);
           const { j11, j12, j21, j22 } = jacobian;
           const det = j11 * j22 - j12 * j21;
           const dLon = (j22 * rx - j12 * ry) / det;
@@ -252,6 +296,11 @@ function createProj4Projection(proj: Proj4Projection): ColumnarProjection {
         }
         lonDeg[i] = lon;
         latDeg[i] = lat;
+        if (!jacobianHolds(lon, lat)) takeJacobian(lon, lat);
+        previousX = targetX;
+        previousY = targetY;
+        previousLon = lon;
+        previousLat = lat;
       }
     },
   };
