@@ -79,6 +79,7 @@ const INTENDED_ACCESS: Record<string, string> = {
   'GET /organisations/:organisationId/activity': 'admin',
   'POST /organisations/:organisationId/invitations': 'admin',
   'GET /organisations/:organisationId/invitations': 'admin',
+  'DELETE /organisations/:organisationId/invitations/:invitationId': 'admin',
   'POST /invitations/accept': 'public',
   'POST /password-reset': 'public',
   'POST /password-reset/complete': 'public',

@@ -97,6 +97,44 @@ describe('createInvitationRoutes', () => {
     expect(response.body.error.message).toMatch(/expired/);
   });
 
+  it('withdraws a pending invitation: its link stops working and it leaves the list', async () => {
+    const maren = await signedInAgent(testApp, 'maren@hollowtide.example');
+    const sent = await maren
+      .post(`/api/v1/organisations/${organisationId}/invitations`)
+      .set(...SAME)
+      .send({ email: 'withdrawn@hollowtide.example', role: 'editor' })
+      .expect(201);
+    const [mail] = await waitForMail(testApp, 'withdrawn@hollowtide.example', 1);
+    const path = `/api/v1/organisations/${organisationId}/invitations/${sent.body.invitation.id}`;
+    const ilse = await signedInAgent(testApp, 'ilse@hollowtide.example');
+    await ilse
+      .delete(path)
+      .set(...SAME)
+      .expect(403);
+
+    await maren
+      .delete(path)
+      .set(...SAME)
+      .expect(204);
+    const pending = await maren.get(`/api/v1/organisations/${organisationId}/invitations`).expect(200);
+    expect(pending.body.invitations.map((i: { email: string }) => i.email)).not.toContain(
+      'withdrawn@hollowtide.example',
+    );
+    await request(testApp.app)
+      .post('/api/v1/invitations/accept')
+      .send({ token: tokenIn(mail?.text ?? ''), displayName: 'Withdrawn', password: 'a long enough password' })
+      .expect(404);
+    await maren
+      .delete(path)
+      .set(...SAME)
+      .expect(404);
+    const activity = await maren.get(`/api/v1/organisations/${organisationId}/activity`).expect(200);
+    expect(activity.body.activity[0]).toMatchObject({
+      action: 'invitation-revoked',
+      subjectId: sent.body.invitation.id,
+    });
+  });
+
   it('answers 409 for inviting an existing member', async () => {
     const maren = await signedInAgent(testApp, 'maren@hollowtide.example');
     await maren

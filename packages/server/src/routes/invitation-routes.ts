@@ -2,7 +2,12 @@ import type { RequestHandler } from 'express';
 import { z } from 'zod';
 import { requireMembership } from '../http/authorise.js';
 import { defineRoute, type RouteSpec } from '../http/route-table.js';
-import { acceptInvitation, inviteMember, listPendingInvitations } from '../services/invitation-service.js';
+import {
+  acceptInvitation,
+  inviteMember,
+  listPendingInvitations,
+  revokeInvitation,
+} from '../services/invitation-service.js';
 import { completePasswordReset, requestPasswordReset } from '../services/password-reset-service.js';
 import type { ServiceContext } from '../services/service-context.js';
 import { startSession } from './auth-routes.js';
@@ -73,6 +78,27 @@ export function createInvitationRoutes(
             createdAt: l.createdAt,
           })),
         });
+      },
+    }),
+    defineRoute({
+      method: 'delete',
+      path: '/organisations/:organisationId/invitations/:invitationId',
+      summary: 'Withdraw a pending invitation; its link stops working at once',
+      tag: 'Members',
+      access: 'admin',
+      params: OrganisationParams.extend({ invitationId: UuidSchema }),
+      responses: {
+        204: { description: 'Withdrawn' },
+        404: { description: 'No pending invitation with this id (accepted, expired or unknown)' },
+      },
+      async handler({ params, auth }, _req, res) {
+        const me = requireMembership(auth);
+        await revokeInvitation(ctx, {
+          organisationId: me.organisationId,
+          invitationId: params.invitationId,
+          actorUserId: me.userId,
+        });
+        res.status(204).end();
       },
     }),
     defineRoute({

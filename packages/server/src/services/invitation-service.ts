@@ -109,3 +109,22 @@ export async function acceptInvitation(
 export function listPendingInvitations(deps: Deps, organisationId: string): Promise<EmailLinkRecord[]> {
   return deps.links.listPendingInvitations(organisationId, deps.now());
 }
+
+/** Withdraws a pending invitation: its link stops working at once. Unknown, used or expired ones answer 404. */
+export async function revokeInvitation(
+  deps: Deps,
+  input: { organisationId: string; invitationId: string; actorUserId: string },
+): Promise<EmailLinkRecord> {
+  const link = await deps.links.revokeInvitation(input.organisationId, input.invitationId, deps.now());
+  if (link === undefined)
+    throw new AppError('not-found', 'No pending invitation with this id: it may have been accepted or have expired.');
+  await deps.activity.append({
+    organisationId: input.organisationId,
+    actorUserId: input.actorUserId,
+    action: 'invitation-revoked',
+    subjectType: 'invitation',
+    subjectId: link.id,
+    details: { email: link.email },
+  });
+  return link;
+}

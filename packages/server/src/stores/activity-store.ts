@@ -9,6 +9,7 @@ export type ActivityAction =
   | 'password-changed'
   | 'invitation-sent'
   | 'invitation-accepted'
+  | 'invitation-revoked'
   | 'role-changed'
   | 'member-removed'
   | 'token-created'

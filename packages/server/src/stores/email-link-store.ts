@@ -36,6 +36,11 @@ export interface EmailLinkStore {
   /** The link if it is unused and unexpired at `now`, without using it up. */
   findUsable(kind: EmailLinkKind, secretHash: string, now: Date): Promise<EmailLinkRecord | undefined>;
   listPendingInvitations(organisationId: string, now: Date): Promise<EmailLinkRecord[]>;
+  /**
+   * Makes a pending invitation of the organisation expire at `now`, so its link no longer works, and
+   * returns it; `undefined` when there is no such pending invitation (unknown, other organisation, used or expired).
+   */
+  revokeInvitation(organisationId: string, id: string, now: Date): Promise<EmailLinkRecord | undefined>;
 }
 
 interface LinkRow {
@@ -109,6 +114,15 @@ export function createKnexEmailLinkStore(db: Knex): EmailLinkStore {
         .select(COLUMNS)
         .orderBy('created_at', 'desc');
       return (rows as LinkRow[]).map(toRecord);
+    },
+    async revokeInvitation(organisationId, id, now) {
+      const [row] = await db('email_links')
+        .where({ kind: 'invitation', organisation_id: organisationId, id })
+        .whereNull('used_at')
+        .where('expires_at', '>', now)
+        .update({ expires_at: now })
+        .returning<LinkRow[]>(COLUMNS);
+      return row === undefined ? undefined : toRecord(row);
     },
   };
 }
