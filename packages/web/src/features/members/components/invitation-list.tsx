@@ -1,8 +1,45 @@
+import { useState } from 'react';
+import { buttonStyles } from '../../../components/ui/button-styles';
+import { FormFailure } from '../../../components/ui/form-failure';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/query-states';
 import { formatDateTime } from '../../../lib/format-date-time';
-import { useInvitations } from '../api/list-invitations';
+import { type Invitation, useInvitations } from '../api/list-invitations';
+import { useRevokeInvitation } from '../api/revoke-invitation';
 
-/** Invitations sent and not yet accepted (nor expired). */
+function WithdrawButton({ organisationId, invitation }: { organisationId: string; invitation: Invitation }) {
+  const [confirming, setConfirming] = useState(false);
+  const revoke = useRevokeInvitation();
+  if (!confirming)
+    return (
+      <button
+        type="button"
+        className={buttonStyles('secondary')}
+        aria-label={`Withdraw the invitation to ${invitation.email}`}
+        onClick={() => setConfirming(true)}
+      >
+        Withdraw
+      </button>
+    );
+  return (
+    <fieldset className="flex flex-wrap items-center gap-2">
+      <legend className="sr-only">Confirm withdrawing the invitation to {invitation.email}</legend>
+      <button
+        type="button"
+        className={buttonStyles('primary', 'bg-[#9c211a] hover:bg-[#7d1a14]')}
+        disabled={revoke.isPending}
+        onClick={() => revoke.mutate({ organisationId, invitationId: invitation.id })}
+      >
+        {revoke.isPending ? 'Withdrawing…' : 'Yes, withdraw it'}
+      </button>
+      <button type="button" className={buttonStyles('quiet')} onClick={() => setConfirming(false)}>
+        Keep it
+      </button>
+      <FormFailure error={revoke.error} />
+    </fieldset>
+  );
+}
+
+/** Invitations sent and not yet accepted (nor expired), each with a way to withdraw it. */
 export function InvitationList({ organisationId }: { organisationId: string }) {
   const invitations = useInvitations(organisationId);
   if (invitations.isPending) return <LoadingState label="Loading the invitations…" />;
@@ -21,12 +58,19 @@ export function InvitationList({ organisationId }: { organisationId: string }) {
   return (
     <ul className="flex flex-col divide-y divide-abyss/10 rounded-lg border border-abyss/10 bg-white">
       {invitations.data.map((invitation) => (
-        <li key={invitation.id} className="flex flex-wrap justify-between gap-x-4 gap-y-1 px-4 py-3 text-sm">
-          <span className="font-medium">{invitation.email}</span>
-          <span>{invitation.role ?? 'no role'}</span>
-          <span className="text-abyss-soft">
-            sent {formatDateTime(invitation.createdAt)} · expires {formatDateTime(invitation.expiresAt)}
-          </span>
+        <li
+          key={invitation.id}
+          className="flex flex-wrap items-center justify-between gap-x-4 gap-y-2 px-4 py-3 text-sm"
+        >
+          <div className="flex flex-col">
+            <span className="font-medium">
+              {invitation.email} <span className="font-normal">as {invitation.role ?? 'no role'}</span>
+            </span>
+            <span className="text-abyss-soft">
+              sent {formatDateTime(invitation.createdAt)} · expires {formatDateTime(invitation.expiresAt)}
+            </span>
+          </div>
+          <WithdrawButton organisationId={organisationId} invitation={invitation} />
         </li>
       ))}
     </ul>
