@@ -385,6 +385,39 @@ describe('createDiveRoutes', () => {
     expect(Date.parse(next.dives[0].startTime)).toBeGreaterThanOrEqual(Date.parse(first.dives[0].startTime));
   });
 
+  it("lists the dives of every project of the organisation, newest first, filtered like a project's list", async () => {
+    const orgDives = `/api/v1/organisations/${organisationId}/dives`;
+    const projects = (await viewer.get(`/api/v1/organisations/${organisationId}/projects`).expect(200)).body.projects;
+    const projectIds = new Set(projects.map((p: { id: string }) => p.id));
+    const sumOverProjects = async (query: string) => {
+      let sum = 0;
+      for (const id of projectIds)
+        sum += (await viewer.get(`/api/v1/organisations/${organisationId}/projects/${id}/dives?${query}`).expect(200))
+          .body.total;
+      return sum;
+    };
+    const all = await viewer.get(`${orgDives}?limit=100`).expect(200);
+    expect(all.body.total).toBeGreaterThan(1);
+    expect(all.body.total).toBe(await sumOverProjects(''));
+    const starts = all.body.dives.map((d: { startTime: string }) => Date.parse(d.startTime));
+    expect(starts).toEqual([...starts].sort((a, b) => b - a));
+    for (const dive of all.body.dives) expect(projectIds.has(dive.projectId)).toBe(true);
+    const attention = await viewer.get(`${orgDives}?verdict=warn,fail&limit=100`).expect(200);
+    expect(attention.body.total).toBe(await sumOverProjects('verdict=warn,fail'));
+    for (const dive of attention.body.dives) expect(['warn', 'fail']).toContain(dive.verdict);
+    const paged = await viewer.get(`${orgDives}?limit=1&offset=1`).expect(200);
+    expect(paged.body.dives.map((d: { id: string }) => d.id)).toEqual([all.body.dives[1].id]);
+    const tooMany = await viewer.get(`${orgDives}?limit=101`).expect(400);
+    expect(tooMany.body.error.code).toBe('bad-request');
+    // Another organisation sees none of these dives through its own address.
+    const { organisationId: otherId } = await seedOrganisation(database.db, 'Brinewater Diving', [
+      { email: 'odile@brinewater.example', role: 'viewer' },
+    ]);
+    const other = await signedInAgent(testApp, 'odile@brinewater.example');
+    expect((await other.get(`/api/v1/organisations/${otherId}/dives`).expect(200)).body.total).toBe(0);
+    await other.get(orgDives).expect(403);
+  });
+
   it('streams the selected dives as one zip of track files', async () => {
     const response = await viewer
       .get(`${base}/dive-archive?format=geojson&ids=${diveId}`)
@@ -402,6 +435,47 @@ describe('createDiveRoutes', () => {
     expect(zip.includes(Buffer.from('PK\x05\x06', 'latin1'))).toBe(true);
     expect(zip.includes(Buffer.from('-dive-01.geojson'))).toBe(true);
     await viewer.get(`${base}/dive-archive?q=nosuchwordanywhere`).expect(404);
+  });
+
+  it('writes the zip as CSV in a chosen CRS, or UTM zoned from the data, with a notes file; refuses a bad CRS before streaming', async () => {
+    const zipOf = (query: string) =>
+      viewer
+        .get(`${base}/dive-archive?${query}`)
+        .buffer(true)
+        .parse((res, done) => {
+          const chunks: Buffer[] = [];
+          res.on('data', (c: Buffer) => chunks.push(c));
+          res.on('end', () => done(null, Buffer.concat(chunks)));
+        });
+    // unzip (Info-ZIP) reads the archive: an outside check that the streamed zip is whole.
+    const saved = (zip: Buffer) => {
+      const file = join(mkdtempSync(join(tmpdir(), 'leadline-zip-')), 'dives.zip');
+      writeFileSync(file, zip);
+      return file;
+    };
+    const listing = (zip: Buffer) => execFileSync('unzip', ['-Z1', saved(zip)]).toString();
+    const entry = (zip: Buffer, name: string) => execFileSync('unzip', ['-p', saved(zip), name]).toString();
+    for (const crs of ['EPSG:25832', 'utm']) {
+      const response = await zipOf(`format=csv&crs=${crs}&ids=${diveId}`).expect(200);
+      const zip = response.body as Buffer;
+      const names = listing(zip).trim().split('\n');
+      expect(names).toContain('crs-notes.txt');
+      const csvName = names.find((n) => n.endsWith('.csv'));
+      expect(csvName).toBeDefined();
+      const notes = entry(zip, 'crs-notes.txt');
+      expect(notes).toContain(`${csvName}: `);
+      if (crs === 'utm') expect(notes).toMatch(/UTM zone \d+/i);
+      else expect(notes).toContain('EPSG:25832');
+      // The CSV carries projected columns besides latitude and longitude.
+      const header = entry(zip, csvName ?? '').split('\n')[0] ?? '';
+      expect(header).toMatch(/lat/i);
+      expect(header.split(',').length).toBeGreaterThan(4);
+    }
+    const wrongFormat = await viewer.get(`${base}/dive-archive?format=gpx&crs=EPSG:25832&ids=${diveId}`).expect(422);
+    expect(wrongFormat.headers['content-type']).toMatch(/json/);
+    expect(wrongFormat.body.error.message).toMatch(/CSV only/);
+    const unknown = await viewer.get(`${base}/dive-archive?format=csv&crs=EPSG:999999&ids=${diveId}`).expect(422);
+    expect(unknown.body.error.details).toEqual({ field: 'crs' });
   });
 });
 

@@ -13,12 +13,13 @@ import {
   downloadDiveTrack,
   getDive,
   listDives,
+  listOrganisationDives,
   listRuns,
   reprocessDive,
   reprocessLog,
 } from '../services/dive-service.js';
 import { getDiveView } from '../services/dive-view-service.js';
-import { attachment, TRACK_FORMATS } from '../services/track-output.js';
+import { attachment, checkOutputCrs, TRACK_FORMATS } from '../services/track-output.js';
 import { DIVE_SORTS, type DiveQuery, type DiveRecord, type DiveResultRecord } from '../stores/dive-store.js';
 import type { RunRecord } from '../stores/processing-run-store.js';
 import { OrganisationParams, TimestampSchema, UuidSchema } from './schemas.js';
@@ -63,6 +64,14 @@ const DiveFilterShape = {
   sort: z.enum(DIVE_SORTS).default('-startTime'),
 };
 
+const { logId: _logId, ...OrganisationFilterShape } = DiveFilterShape;
+
+const OrganisationDiveListQuery = z.object({
+  ...OrganisationFilterShape,
+  limit: z.coerce.number().int().min(1).max(100).default(20),
+  offset: z.coerce.number().int().min(0).max(1_000_000).default(0),
+});
+
 const DiveListQuery = z.object({
   ...DiveFilterShape,
   limit: z.coerce.number().int().min(1).max(500).default(50),
@@ -79,6 +88,11 @@ const ArchiveQuery = z.object({
     .optional()
     .describe('Comma-separated dive ids (at most 300): the selection'),
   format: z.enum(TRACK_FORMATS).default('gpx'),
+  crs: z
+    .string()
+    .max(20)
+    .optional()
+    .describe("CSV only: also write coordinates in EPSG:<code>, or utm (each dive's zone chosen from its data)"),
   limit: z.coerce.number().int().min(1).max(1000).default(1000),
 });
 
@@ -247,6 +261,38 @@ export function createDiveRoutes(deps: DiveDeps): RouteSpec[] {
             },
           }),
         ]),
+    defineRoute({
+      method: 'get',
+      path: '/organisations/:organisationId/dives',
+      summary:
+        "Dives of every project of the organisation (recent ones, those needing attention), filtered like a project's list",
+      tag: 'Dives',
+      access: 'viewer',
+      params: OrganisationParams,
+      query: OrganisationDiveListQuery,
+      responses: {
+        200: {
+          description: 'One page of dives, each with its project id, and the total',
+          schema: z.object({
+            dives: z.array(DiveSchema.extend({ projectId: UuidSchema })),
+            total: z.number().int(),
+            limit: z.number().int(),
+            offset: z.number().int(),
+          }),
+        },
+      },
+      async handler({ query, auth }, _req, res) {
+        const me = requireMembership(auth);
+        const { projectId: _p, ...filters } = toQuery('', query);
+        const { dives, total } = await listOrganisationDives(deps, { ...filters, organisationId: me.organisationId });
+        res.json({
+          dives: dives.map((d) => ({ ...diveJson(d), projectId: d.projectId })),
+          total,
+          limit: query.limit,
+          offset: query.offset,
+        });
+      },
+    }),
     defineRoute({
       method: 'get',
       path: '/organisations/:organisationId/projects/:projectId/dives',
@@ -467,9 +513,16 @@ export function createDiveRoutes(deps: DiveDeps): RouteSpec[] {
       access: 'viewer',
       params: ProjectParams,
       query: ArchiveQuery,
-      responses: { 200: { description: 'A zip with one track file per dive', contentType: 'application/zip' } },
+      responses: {
+        200: {
+          description: 'A zip with one track file per dive (and crs-notes.txt when a CRS was applied)',
+          contentType: 'application/zip',
+        },
+        422: { description: 'A CRS with a format other than CSV, or a CRS Leadline cannot run' },
+      },
       async handler({ params, query, auth }, _req, res) {
         const me = requireMembership(auth);
+        checkOutputCrs(query.format, query.crs);
         const { dives } = await listDives(deps, me.organisationId, {
           ...toQuery(params.projectId, { ...query, offset: 0 }),
           ids: query.ids,
@@ -482,6 +535,7 @@ export function createDiveRoutes(deps: DiveDeps): RouteSpec[] {
         // One dive at a time: only one track is in memory while the zip streams out. Once the zip
         // has started no error body can follow, so a failure cuts the response (the client sees a broken zip).
         const used = new Set<string>();
+        const crsNotes: string[] = [];
         try {
           for (const dive of dives) {
             const file = await downloadDiveTrack(deps, {
@@ -490,16 +544,19 @@ export function createDiveRoutes(deps: DiveDeps): RouteSpec[] {
               diveId: dive.id,
               format: query.format,
               variant: 'raw',
+              crs: query.crs,
             });
             let name = file.fileName;
             if (used.has(name)) name = `${diveFileName(dive, 'raw')}-${dive.id.slice(0, 8)}.${query.format}`;
             used.add(name);
+            if (file.crsNote !== undefined) crsNotes.push(`${name}: ${file.crsNote}`);
             zip.addBuffer(file.body, name, { mtime: dive.startTime ?? new Date(0) });
           }
         } catch (error) {
           res.destroy(error instanceof Error ? error : new Error(String(error)));
           return;
         }
+        if (crsNotes.length > 0) zip.addBuffer(Buffer.from(`${crsNotes.join('\n')}\n`), 'crs-notes.txt');
         zip.end();
         await new Promise<void>((resolve, reject) => {
           res.on('finish', resolve);

@@ -18,7 +18,13 @@ import {
 import { AppError } from '../http/errors.js';
 import type { ProcessingQueue } from '../jobs/processing-queue.js';
 import type { ActivityStore } from '../stores/activity-store.js';
-import type { DiveQuery, DiveRecord, DiveResultRecord, DiveStore } from '../stores/dive-store.js';
+import type {
+  DiveQuery,
+  DiveRecord,
+  DiveResultRecord,
+  DiveStore,
+  OrganisationDiveQuery,
+} from '../stores/dive-store.js';
 import type { LogRecord, LogStore } from '../stores/log-store.js';
 import type { ProcessingRunStore, RunRecord } from '../stores/processing-run-store.js';
 import type { ProjectRecord, ProjectStore } from '../stores/project-store.js';
@@ -110,6 +116,14 @@ export async function queueLogProcessing(
     // The log and its queued run are stored; a worker sends runs left without a job when it starts.
   }
   return run;
+}
+
+/** The dives of every project of an organisation, filtered, sorted and paged, with the total before paging. */
+export async function listOrganisationDives(
+  deps: Pick<DiveDeps, 'dives'>,
+  query: OrganisationDiveQuery,
+): Promise<{ dives: DiveRecord[]; total: number }> {
+  return deps.dives.list(query);
 }
 
 /** A project's dives, filtered, sorted and paged, with the total before paging. */

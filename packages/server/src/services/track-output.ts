@@ -32,6 +32,31 @@ export interface RenderedTrack {
   crsNote: string | undefined;
 }
 
+function refuseCrsOutsideCsv(format: TrackFormat, crs: string | undefined): void {
+  if (crs !== undefined && format !== 'csv')
+    throw new AppError(
+      'unprocessable',
+      `A CRS applies to CSV only; GPX, GeoJSON and KML are WGS 84 by their standards (asked for ${crs} with ${format}).`,
+      { field: 'crs' },
+    );
+}
+
+/**
+ * Checks a requested output CRS before any work starts (a zip cannot report an error once it
+ * streams): none, `utm` (the zone is chosen per track from its data) or an EPSG code proj4 can run,
+ * and only with CSV. Throws 422 `AppError` naming the field otherwise.
+ */
+export function checkOutputCrs(format: TrackFormat, crs: string | undefined): void {
+  refuseCrsOutsideCsv(format, crs);
+  if (crs === undefined || crs.toLowerCase() === 'utm') return;
+  try {
+    resolveCrs(crs);
+  } catch (error) {
+    if (error instanceof LeadlineError) throw new AppError('unprocessable', error.message, { field: 'crs' });
+    throw error;
+  }
+}
+
 /**
  * Writes tracks and waypoints in a format. `crs` (an EPSG code or `utm`) adds projected columns
  * to CSV; GPX, GeoJSON and KML are WGS 84 by their standards, so a CRS with them is refused (422).
@@ -41,12 +66,7 @@ export function renderTracks(
   options: { format: TrackFormat; crs?: string | undefined; name: string; nowMs: number },
 ): RenderedTrack {
   const base = { contentType: MEDIA_TYPES[options.format], extension: options.format, crsNote: undefined };
-  if (options.crs !== undefined && options.format !== 'csv')
-    throw new AppError(
-      'unprocessable',
-      `A CRS applies to CSV only; GPX, GeoJSON and KML are WGS 84 by their standards (asked for ${options.crs} with ${options.format}).`,
-      { field: 'crs' },
-    );
+  refuseCrsOutsideCsv(options.format, options.crs);
   switch (options.format) {
     case 'gpx':
       return { ...base, text: writeGpx(input, { name: options.name, timeMs: options.nowMs }) };

@@ -88,6 +88,9 @@ export interface DiveQuery {
   offset: number;
 }
 
+/** The same filters over every project of an organisation. */
+export type OrganisationDiveQuery = Omit<DiveQuery, 'projectId'> & { organisationId: string };
+
 /** Orders a dive list can be sorted in (`-` for descending). */
 export const DIVE_SORTS = [
   'startTime',
@@ -112,7 +115,8 @@ export interface DiveStore {
   storeProcessed(runId: string, logId: string, projectId: string, dives: NewDive[]): Promise<string[] | undefined>;
   /** Stores a `reprocess` run's results, makes them the dives' latest and marks the run done, in one transaction. */
   storeReprocessed(runId: string, results: Array<{ diveId: string; result: NewDiveResult }>): Promise<boolean>;
-  list(query: DiveQuery): Promise<{ dives: DiveRecord[]; total: number }>;
+  /** One project's dives, or (with `organisationId` instead) the dives of every project of an organisation. */
+  list(query: DiveQuery | OrganisationDiveQuery): Promise<{ dives: DiveRecord[]; total: number }>;
   find(projectId: string, diveId: string): Promise<DiveRecord | undefined>;
   /** A dive by id alone, with its project's organisation, name, site and CRS (for routes outside an organisation). */
   findWithProject(diveId: string): Promise<
@@ -421,7 +425,10 @@ export function createKnexDiveStore(db: Knex): DiveStore {
       });
     },
     async list(query) {
-      const filtered = base().where('d.project_id', query.projectId);
+      const filtered =
+        'organisationId' in query
+          ? base().whereIn('d.project_id', db('projects').select('id').where('organisation_id', query.organisationId))
+          : base().where('d.project_id', query.projectId);
       if (query.logId !== undefined) filtered.where('d.log_id', query.logId);
       if (query.ids !== undefined) filtered.whereIn('d.id', query.ids);
       // A dive is in a time range when it overlaps it.
