@@ -4,7 +4,8 @@ import { AppShell } from './layout/app-shell';
 import { RequireSignIn } from './layout/require-sign-in';
 
 // One chunk per page, so the first load carries only the shell and the page asked for.
-const LandingPage = lazy(() => import('./routes/landing').then((m) => ({ default: m.LandingPage })));
+// `/` is the home page when signed in and the landing page for visitors.
+const StartPage = lazy(() => import('./routes/home').then((m) => ({ default: m.StartPage })));
 const SignInPage = lazy(() => import('./routes/sign-in').then((m) => ({ default: m.SignInPage })));
 const DivePage = lazy(() => import('./routes/dive').then((m) => ({ default: m.DivePage })));
 const PreviewDivePage = lazy(() => import('./routes/preview-dive').then((m) => ({ default: m.PreviewDivePage })));
@@ -28,7 +29,7 @@ export function createRouter() {
     {
       element: <AppShell />,
       children: [
-        { path: '/', element: <LandingPage /> },
+        { path: '/', element: <StartPage /> },
         { path: '/sign-in', element: <SignInPage /> },
         { path: '/preview/dive', element: <PreviewDivePage /> },
         { path: '/forgot-password', element: <ForgotPasswordPage /> },

@@ -7,6 +7,8 @@ export const projectKeys = {
   detail: (organisationId: string, projectId: string) => [...projectKeys.details(), organisationId, projectId] as const,
   dives: (organisationId: string, projectId: string) =>
     [...projectKeys.detail(organisationId, projectId), 'dives'] as const,
+  organisationDives: (organisationId: string, query: string) =>
+    [...projectKeys.all, 'organisation-dives', organisationId, query] as const,
   diveList: (organisationId: string, projectId: string, query: string) =>
     [...projectKeys.dives(organisationId, projectId), query] as const,
 };
