@@ -1,6 +1,7 @@
 import { useParams } from 'react-router-dom';
 import { ErrorState, LoadingState } from '../../components/ui/query-states';
 import { useMe } from '../../features/auth/api/get-me';
+import { CrsPicker } from '../../features/crs/components/crs-picker';
 import { useDive } from '../../features/dives/api/get-dive';
 import { DiveArchivePanels } from '../../features/dives/components/dive-archive-panels';
 import { DiveView } from '../../features/dives/components/dive-view';
@@ -35,6 +36,7 @@ export function DivePage() {
           archive={archive}
           canReprocess={role === 'editor' || role === 'admin'}
           near={firstPosition(dive.data)}
+          renderCrsPicker={(props) => <CrsPicker {...props} />}
         />
       ) : null}
     </div>
