@@ -47,7 +47,7 @@ export function DiveFilters({ state, onApply }: { state: DiveListState; onApply:
     <form
       aria-label="Filter dives"
       onSubmit={submit}
-      className="grid gap-3 rounded-lg border border-abyss/15 bg-white p-4 sm:grid-cols-2 lg:grid-cols-4"
+      className="grid gap-3 rounded-lg border border-abyss/15 bg-white p-4 sm:grid-cols-2 lg:grid-cols-[auto_auto_auto_minmax(12rem,1fr)]"
     >
       <fieldset className="flex flex-col gap-1">
         <legend className="text-sm font-medium">Days (UTC)</legend>
