@@ -199,10 +199,12 @@ describe('project page: table, filters, selection and zip download, upload contr
   it('a viewer sees the table but no upload control, and a direct upload with their session is refused', async () => {
     await browser.context.clearCookies();
     const page = await browser.context.newPage();
-    await page.setViewportSize({ width: 1024, height: 768 });
+    // A tablet on deck, upright: the page fits its width (the table scrolls inside its own box if it must).
+    await page.setViewportSize({ width: 768, height: 1024 });
     await signIn(page, viewer.email);
     await page.goto(`${web.baseUrl}/projects/${projectId}`);
     await expect.poll(() => rowIds(page).then((ids) => ids.length)).toBe(DIVES);
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(768);
     expect(await page.getByRole('link', { name: 'Upload into this project' }).count()).toBe(0);
     expect(await page.locator(`a[href^="/upload"]`).count()).toBe(0);
 
