@@ -138,6 +138,7 @@ export async function runArchiveBench(): Promise<string> {
       logger: pino({ level: 'silent' }),
       pollingIntervalS: 0.5,
     });
+    await processing.ready(); // the worker thread has loaded the code: the first upload is timed like the rest
     const testApp = await createTestApp({ db, url: connection }, { processingQueue: processing.queue });
     const { organisationId } = await seedOrganisation(db, `Hollowtide bench ${Date.now()}`, [
       { email: 'bench@hollowtide.example', role: 'admin' },

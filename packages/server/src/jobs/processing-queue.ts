@@ -81,6 +81,8 @@ export function createProcessingQueue(
 
 /** A running worker. */
 export interface ProcessingWorker {
+  /** Settles when the worker takes jobs (its threads have loaded); rejects when it cannot. */
+  ready(): Promise<void>;
   /** Wakes the worker to fetch at once (after a send from the same process). */
   wake(): void;
   stop(): Promise<void>;
@@ -103,43 +105,54 @@ export async function startProcessingWorker(
     settings?: Partial<ProcessingJobSettings>;
     /** Tells the project's watchers about a dive that failed its audit (after the run is stored). */
     notify?: (audit: FailedAudit) => Promise<unknown>;
+    /** Jobs are taken once this settles (worker threads loaded), so no job's expiry runs while code loads. */
+    takeJobsAfter?: Promise<unknown>;
   } = {},
 ): Promise<ProcessingWorker> {
   const log = options.logger;
   let workerId: string | undefined;
-  workerId = await boss.work<ProcessingJobData>(
-    PROCESSING_QUEUE,
-    { includeMetadata: true, batchSize: 1, pollingIntervalSeconds: options.pollingIntervalS ?? 2 },
-    async (jobs) => {
-      for (const job of jobs) {
-        const { runId, organisationId } = job.data;
-        try {
-          const started = Date.now();
-          const outcome = await performRun(deps, runId, organisationId, options.hooks);
-          log?.info({ runId, status: outcome.status, ms: Date.now() - started }, 'processing run finished');
-          if (outcome.status === 'done' && options.notify !== undefined)
-            for (const audit of outcome.failedAudits)
-              await options
-                .notify(audit)
-                .catch((error: unknown) => log?.warn({ runId, err: error }, 'failed-audit notice not sent'));
-        } catch (error) {
-          const message = error instanceof Error ? error.message : String(error);
-          if (error instanceof PermanentProcessingError) {
-            await deps.runs.fail(runId, message);
-            log?.warn({ runId, reason: message }, 'processing run failed');
-            continue;
+  const subscribe = () =>
+    boss.work<ProcessingJobData>(
+      PROCESSING_QUEUE,
+      { includeMetadata: true, batchSize: 1, pollingIntervalSeconds: options.pollingIntervalS ?? 2 },
+      async (jobs) => {
+        for (const job of jobs) {
+          const { runId, organisationId } = job.data;
+          try {
+            const started = Date.now();
+            const outcome = await performRun(deps, runId, organisationId, options.hooks);
+            log?.info({ runId, status: outcome.status, ms: Date.now() - started }, 'processing run finished');
+            if (outcome.status === 'done' && options.notify !== undefined)
+              for (const audit of outcome.failedAudits)
+                await options
+                  .notify(audit)
+                  .catch((error: unknown) => log?.warn({ runId, err: error }, 'failed-audit notice not sent'));
+          } catch (error) {
+            const message = error instanceof Error ? error.message : String(error);
+            if (error instanceof PermanentProcessingError) {
+              await deps.runs.fail(runId, message);
+              log?.warn({ runId, reason: message }, 'processing run failed');
+              continue;
+            }
+            if (job.retryCount >= job.retryLimit)
+              await deps.runs.fail(runId, `gave up after ${job.retryCount + 1} attempts: ${message}`);
+            else await deps.runs.requeue(runId, `attempt ${job.retryCount + 1} failed, will retry: ${message}`);
+            log?.error({ runId, err: error }, 'processing attempt failed');
+            throw error;
           }
-          if (job.retryCount >= job.retryLimit)
-            await deps.runs.fail(runId, `gave up after ${job.retryCount + 1} attempts: ${message}`);
-          else await deps.runs.requeue(runId, `attempt ${job.retryCount + 1} failed, will retry: ${message}`);
-          log?.error({ runId, err: error }, 'processing attempt failed');
-          throw error;
         }
-      }
-      // pg-boss waits a polling interval even after a fetch that found work; fetch again at once.
-      if (workerId !== undefined) boss.notifyWorker(workerId);
-    },
-  );
+        // pg-boss waits a polling interval even after a fetch that found work; fetch again at once.
+        if (workerId !== undefined) boss.notifyWorker(workerId);
+      },
+    );
+  let stopped = false;
+  const taking = (async () => {
+    await options.takeJobsAfter;
+    if (stopped) return;
+    workerId = await subscribe();
+  })();
+  // A failure to start taking jobs is logged and shown by `ready` (it rejects).
+  taking.catch((error: unknown) => log?.error({ err: error }, 'the processing worker could not start'));
   const queue = createProcessingQueue(boss, deps.runs, options.settings);
   for (const { run, organisationId } of await deps.runs.queuedWithoutJob()) await queue.enqueue(run, organisationId);
   for (const log of await deps.runs.logsWithoutRuns(10_000)) {
@@ -174,12 +187,15 @@ export async function startProcessingWorker(
   }, 60_000);
   reaper.unref();
   return {
+    ready: () => taking,
     wake: () => {
       if (workerId !== undefined) boss.notifyWorker(workerId);
     },
     stop: async () => {
+      stopped = true;
       clearInterval(reaper);
-      await boss.offWork(PROCESSING_QUEUE);
+      await taking.catch(() => undefined);
+      if (workerId !== undefined) await boss.offWork(PROCESSING_QUEUE);
     },
   };
 }

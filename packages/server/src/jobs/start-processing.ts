@@ -21,6 +21,8 @@ import { createThreadCompute } from './processing-threads.js';
 export interface Processing {
   queue: ProcessingQueue;
   worker: ProcessingWorker | undefined;
+  /** Settles when this process's worker takes jobs (at once without one). */
+  ready(): Promise<void>;
   stop(): Promise<void>;
 }
 
@@ -51,13 +53,6 @@ export async function startProcessing(options: {
   const mail = options.mail;
   // Read, split, audit and summarise run on a worker thread, so API requests are served meanwhile.
   const compute = options.worker === false || options.threads === false ? undefined : createThreadCompute();
-  try {
-    await compute?.ready();
-  } catch (error) {
-    await compute?.close();
-    await boss.stop({ graceful: false });
-    throw error;
-  }
   const worker =
     options.worker === false
       ? undefined
@@ -75,6 +70,8 @@ export async function startProcessing(options: {
             ...(options.hooks === undefined ? {} : { hooks: options.hooks }),
             ...(options.settings === undefined ? {} : { settings: options.settings }),
             ...(options.pollingIntervalS === undefined ? {} : { pollingIntervalS: options.pollingIntervalS }),
+            // The threads load the code (seconds on a busy machine) while the server starts answering.
+            ...(compute === undefined ? {} : { takeJobsAfter: compute.ready() }),
             ...(mail === undefined
               ? {}
               : { notify: (audit: FailedAudit) => notifyFailedAudit({ projects, ...mail }, audit) }),
@@ -84,6 +81,9 @@ export async function startProcessing(options: {
   return {
     queue,
     worker,
+    ready: async () => {
+      await worker?.ready();
+    },
     stop: async () => {
       await worker?.stop();
       await boss.stop({ graceful: true, wait: true, timeout: 5000 });

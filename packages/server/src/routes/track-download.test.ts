@@ -75,7 +75,7 @@ describe('GET …/dives/:diveId/track (downloadDiveTrack, sendPreparedFile)', ()
     await waitForRuns(viewer, base, logId, 1);
     diveId = (await viewer.get(`${base}/dives?logId=${logId}`).expect(200)).body.dives[0].id;
     track = `${base}/dives/${diveId}/track`;
-  });
+  }, 60_000); // the upload is processed here: a worker thread first loads the code
   afterAll(async () => {
     await processing?.stop();
     await testApp?.close();
