@@ -202,6 +202,56 @@ describe('API tokens, members, invitations and password reset in headless Chromi
     await page.close();
   });
 
+  it('switches between organisations in the header, and the admin pages fit a tablet', async () => {
+    const person = DEMO_USERS[4];
+    const page = await newPage();
+    await signIn(page, person.email, DEMO_PASSWORD);
+    const nav = page.getByRole('navigation', { name: 'Main' });
+    // One organisation: no chooser, just its name and the role there.
+    expect(await page.getByRole('banner').textContent()).toContain(`${DEMO_ORGANISATION.name} · editor`);
+    expect(await page.getByRole('banner').getByLabel('Organisation').count()).toBe(0);
+
+    const created = await page.evaluate(async () => {
+      const response = await fetch('/api/v1/organisations', {
+        method: 'POST',
+        headers: { 'Content-Type': 'application/json' },
+        body: JSON.stringify({ name: 'Saltmarsh Survey Trials', slug: 'saltmarsh-trials' }),
+      });
+      return response.status;
+    });
+    expect(created).toBe(201);
+    await page.reload();
+    const chooser = page.getByRole('banner').getByLabel('Organisation', { exact: true });
+    await chooser.waitFor();
+    await chooser.selectOption({ label: `${DEMO_ORGANISATION.name} (editor)` });
+    await expect.poll(() => nav.getByRole('link', { name: 'Members' }).count()).toBe(0);
+    await chooser.selectOption({ label: 'Saltmarsh Survey Trials (admin)' });
+    await nav.getByRole('link', { name: 'Members' }).click();
+    await expect
+      .poll(() => page.getByRole('heading', { level: 1 }).textContent())
+      .toBe('Members of Saltmarsh Survey Trials');
+    // The choice is remembered across a reload.
+    await page.reload();
+    await expect
+      .poll(() => page.getByRole('heading', { level: 1 }).textContent())
+      .toBe('Members of Saltmarsh Survey Trials');
+
+    // Down to a tablet held upright: no page-wide sideways scrolling (wide tables scroll inside their box).
+    await page.setViewportSize({ width: 768, height: 1024 });
+    for (const path of ['/members', '/tokens', '/dev/mailbox']) {
+      await page.goto(`${web.baseUrl}${path}`);
+      await page.getByRole('heading', { level: 1 }).waitFor();
+      await page.waitForLoadState('networkidle');
+      const widths = await page.evaluate(() => ({
+        scroll: document.documentElement.scrollWidth,
+        client: document.documentElement.clientWidth,
+      }));
+      expect(widths.scroll, `${path} at 768 px`).toBeLessThanOrEqual(widths.client);
+      await page.screenshot({ path: `${SCREENSHOTS}/tablet${path.replaceAll('/', '-')}.png`, fullPage: true });
+    }
+    await page.close();
+  });
+
   it('resets a forgotten password through the mailed link, then signs in with the new one', async () => {
     const person = DEMO_USERS[1];
     const newPassword = 'slack water at the quay';
