@@ -48,7 +48,7 @@ export const registerPush: RegisterCommand = (program, context) => {
       'after',
       `
 The server keeps each file's bytes verbatim with its SHA-256; pushing the same file again returns the
-log already archived. Create a read-write token with POST /api/v1/organisations/<id>/tokens while signed in.
+log already archived. Create a read-write token on the server's web site, page API tokens (/tokens).
 
 Examples:
   export LEADLINE_TOKEN=llt_...
@@ -74,7 +74,7 @@ function parseServerUrl(text: string): string {
 export async function runPush(args: PushArgs, io: CliIo): Promise<number> {
   if (!args.token) {
     io.stderr(
-      `leadline push: set ${TOKEN_VARIABLE} to an API token of the server (create one with POST /api/v1/organisations/<id>/tokens while signed in)\n`,
+      `leadline push: set ${TOKEN_VARIABLE} to an API token of the server (create one on its web site, page API tokens: /tokens)\n`,
     );
     return EXIT_USAGE;
   }
