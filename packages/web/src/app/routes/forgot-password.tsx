@@ -13,7 +13,7 @@ export function ForgotPasswordPage() {
       </div>
       <ForgotPasswordForm />
       <p className="text-sm">
-        <Link to="/sign-in" className="font-medium text-kelp underline underline-offset-2">
+        <Link to="/sign-in" className="font-medium text-abyss-soft underline underline-offset-2">
           Back to sign in
         </Link>
       </p>

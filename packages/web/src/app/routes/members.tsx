@@ -49,7 +49,7 @@ export function MembersPage() {
           <InvitationList organisationId={organisationId} />
           <p className="text-sm text-abyss-soft">
             Running without a mail server? The invitations are in the{' '}
-            <Link to="/dev/mailbox" className="font-medium text-kelp underline underline-offset-2">
+            <Link to="/dev/mailbox" className="font-medium text-abyss-soft underline underline-offset-2">
               development mailbox
             </Link>
             .

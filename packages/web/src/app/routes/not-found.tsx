@@ -6,7 +6,7 @@ export function NotFoundPage() {
   const { pathname } = useLocation();
   return (
     <div className="mx-auto max-w-xl px-6 py-24 text-center">
-      <p className="text-sm font-semibold tracking-wide text-kelp uppercase">Error 404</p>
+      <p className="text-sm font-semibold tracking-wide text-abyss-soft uppercase">Error 404</p>
       <h1 className="mt-1 text-2xl font-semibold">Nothing here</h1>
       <p className="mt-2 text-abyss-soft">
         This address does not lead to a page of Leadline: <code className="break-all">{pathname}</code>. A link may be

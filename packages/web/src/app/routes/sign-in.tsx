@@ -18,7 +18,7 @@ export function SignInPage() {
       </div>
       <SignInForm onSignedIn={() => navigate(safeNext(params.get('next')), { replace: true })} />
       <p className="text-sm">
-        <Link to="/forgot-password" className="font-medium text-kelp underline underline-offset-2">
+        <Link to="/forgot-password" className="font-medium text-abyss-soft underline underline-offset-2">
           Forgot password?
         </Link>
       </p>

@@ -56,7 +56,7 @@ export function ResetPasswordForm({ token }: { token: string }) {
       <FormFailure error={complete.error} />
       {linkGone ? (
         <p className="text-sm">
-          <Link to="/forgot-password" className="font-medium text-kelp underline underline-offset-2">
+          <Link to="/forgot-password" className="font-medium text-abyss-soft underline underline-offset-2">
             Ask for a new reset link
           </Link>
         </p>

@@ -7,7 +7,7 @@ export function Linkify({ text }: { text: string }) {
   const parts: ReactNode[] = text.split(URL_PATTERN).map((part, index) =>
     index % 2 === 1 ? (
       // biome-ignore lint/suspicious/noArrayIndexKey: the parts of one fixed text never reorder
-      <a key={index} href={part} className="break-all font-medium text-kelp underline underline-offset-2">
+      <a key={index} href={part} className="break-all font-medium text-abyss-soft underline underline-offset-2">
         {part}
       </a>
     ) : (

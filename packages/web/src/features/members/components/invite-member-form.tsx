@@ -52,7 +52,7 @@ export function InviteMemberForm({ organisationId }: { organisationId: string })
         ))}
       </SelectField>
       <FormFailure error={invite.error} />
-      <div role="status" className="text-sm text-kelp empty:hidden">
+      <div role="status" className="text-sm text-abyss-soft empty:hidden">
         {invite.isSuccess && !invite.isPending ? `Invitation sent to ${invite.data.email}.` : ''}
       </div>
       <div>
