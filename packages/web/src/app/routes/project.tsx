@@ -49,7 +49,8 @@ export function ProjectPage() {
   const dives = useProjectDives(organisationId, projectId, toListParams(state), filtersValid);
   const [selection, setSelection] = useState<RowSelectionState>({});
   const [columns, setColumns] = useState(() => readColumnChoice(browserStorage()));
-  const [crs, setCrs] = useState('utm');
+  // Until someone chooses, CSV goes in the project's own CRS when it has one, else UTM from the data.
+  const [chosenCrs, setCrs] = useState<string | null>(null);
 
   function update(next: Partial<DiveListState>, resetPage = true) {
     setSearchParams(writeListState({ ...state, ...next, ...(resetPage ? { page: 0 } : {}) }));
@@ -69,6 +70,7 @@ export function ProjectPage() {
     );
 
   const p = project.data;
+  const crs = chosenCrs ?? p.defaultCrs ?? 'utm';
   const canUpload = membership.role === 'editor' || membership.role === 'admin';
   const selectedIds = Object.keys(selection).filter((id) => selection[id]);
   const page = dives.data;
