@@ -214,6 +214,10 @@ describe('upload a log, follow its processing, open and download the dive in hea
       .poll(() => page.getByRole('table').textContent())
       .toMatch(/Reprocessed \(this dive\).*Default — shown above.*Read and audited/s);
 
+    // The archive panels (history, reprocess with its displacement, downloads), for the test run's record.
+    await page.getByRole('heading', { name: /Processing history/ }).scrollIntoViewIfNeeded();
+    await page.screenshot({ path: join(ARTIFACTS, 'dive-page-archive.png'), fullPage: true });
+
     expect(pageErrors).toEqual([]);
     await page.close();
   });
