@@ -96,9 +96,10 @@ describe('project page: table, filters, selection and zip download, upload contr
       .db('dives')
       .join('logs', 'logs.id', 'dives.log_id')
       .where('dives.project_id', projectId)
-      .select<Array<{ id: string; max_depth_m: number; file: string }>>(
+      .select<Array<{ id: string; max_depth_m: number; verdict: string; file: string }>>(
         'dives.id',
         'dives.max_depth_m',
+        'dives.verdict',
         'logs.original_file_name as file',
       );
 
@@ -153,6 +154,20 @@ describe('project page: table, filters, selection and zip download, upload contr
     await expect.poll(() => rowIds(page).then((ids) => ids.sort())).toEqual(expected.sort());
     expect(expected.length).toBeLessThan(DIVES);
     await page.getByRole('button', { name: 'Clear filters' }).click();
+    await expect.poll(() => rowIds(page).then((ids) => ids.length)).toBe(DIVES);
+
+    // Filter by verdict (applied on the click): the rows are the database's dives with that verdict, or
+    // the empty state when there are none.
+    for (const verdict of ['fail', 'warn'] as const) {
+      const label = verdict === 'fail' ? 'Fail' : 'Warn';
+      await page.getByRole('checkbox', { name: label, exact: true }).check();
+      await page.waitForURL(new RegExp(`verdict=${verdict}`));
+      const withVerdict = inDatabase.filter((d) => d.verdict === verdict).map((d) => d.id);
+      if (withVerdict.length === 0)
+        await expect.poll(() => page.getByText('No dive matches these filters').count()).toBe(1);
+      else await expect.poll(() => rowIds(page).then((ids) => ids.sort())).toEqual(withVerdict.sort());
+      await page.getByRole('checkbox', { name: label, exact: true }).uncheck();
+    }
     await expect.poll(() => rowIds(page).then((ids) => ids.length)).toBe(DIVES);
 
     // Column choice, remembered across a reload.
