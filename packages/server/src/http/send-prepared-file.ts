@@ -16,9 +16,14 @@ export function ifNoneMatchHits(header: string | undefined, etag: string): boole
  * `Cache-Control: private, no-cache` (caches keep it for this user and ask again every time) and
  * `304 Not Modified` when the client already holds the same bytes.
  */
-export function sendPreparedFile(req: Request, res: Response, file: PreparedFile, disposition: string): void {
+export async function sendPreparedFile(
+  req: Request,
+  res: Response,
+  file: PreparedFile,
+  disposition: string,
+): Promise<void> {
   const zipped = req.acceptsEncodings('gzip', 'identity') === 'gzip';
-  const etag = zipped ? file.gzipEtag : file.etag;
+  const { body, etag } = zipped ? await file.gzipped() : file;
   res.setHeader('ETag', etag);
   res.setHeader('Cache-Control', 'private, no-cache');
   res.setHeader('Vary', 'Accept-Encoding');
@@ -26,7 +31,6 @@ export function sendPreparedFile(req: Request, res: Response, file: PreparedFile
     res.status(304).end();
     return;
   }
-  const body = zipped ? file.gzip : file.body;
   // The charset Express would add to a text body (the bytes are UTF-8).
   res.setHeader(
     'Content-Type',

@@ -377,7 +377,7 @@ export function createDiveRoutes(deps: DiveDeps): RouteSpec[] {
         });
         if (file.crsNote !== undefined)
           res.setHeader('X-Leadline-Crs-Note', file.crsNote.replace(/[^\x20-\x7e]/g, '?'));
-        sendPreparedFile(req, res, file, attachment(file.fileName));
+        await sendPreparedFile(req, res, file, attachment(file.fileName));
       },
     }),
     defineRoute({

@@ -241,7 +241,7 @@ export async function downloadDiveTrack(
       { format: input.format, crs: input.crs, name, nowMs: deps.now().getTime() },
     );
     const fileName = `${name}.${rendered.extension}`;
-    const value = await prepareFile({
+    const value = prepareFile({
       fileName,
       contentType: rendered.contentType,
       text: rendered.text,

@@ -4,20 +4,23 @@ import { gzip } from 'node:zlib';
 
 const gzipAsync = promisify(gzip);
 
+/** One encoding of a file's bytes with its strong ETag (a hash of exactly those bytes). */
+export interface EncodedBody {
+  body: Buffer;
+  etag: string;
+}
+
 /**
- * A rendered file kept ready to serve: its UTF-8 bytes exactly as the writer made them, the same
- * bytes gzipped once, and a strong ETag for each (a hash of the bytes sent, so equal tags mean
- * equal bytes).
+ * A rendered file kept ready to serve: its UTF-8 bytes exactly as the writer made them with their
+ * strong ETag, and the same bytes gzipped, made once on first demand (a zip of many dives never
+ * needs them).
  */
-export interface PreparedFile {
+export interface PreparedFile extends EncodedBody {
   fileName: string;
   contentType: string;
   crsNote: string | undefined;
-  body: Buffer;
-  etag: string;
-  gzip: Buffer;
-  gzipEtag: string;
-  /** Bytes held by both bodies (the cache's measure). */
+  gzipped(): Promise<EncodedBody>;
+  /** Bytes the cache counts: the body plus a quarter of it for its gzip (text tracks gzip to about a sixth). */
   byteSize: number;
 }
 
@@ -25,23 +28,25 @@ function strongEtag(bytes: Buffer): string {
   return `"${createHash('sha256').update(bytes).digest('base64url').slice(0, 32)}"`;
 }
 
-/** Encodes, hashes and gzips a rendered file once (the gzip runs on libuv's thread pool, off the event loop). */
-export async function prepareFile(file: {
+/** Encodes and hashes a rendered file once; its gzip runs later on libuv's thread pool, off the event loop. */
+export function prepareFile(file: {
   fileName: string;
   contentType: string;
   crsNote: string | undefined;
   text: string;
-}): Promise<PreparedFile> {
+}): PreparedFile {
   const body = Buffer.from(file.text, 'utf8');
-  const zipped = await gzipAsync(body);
+  let zipped: Promise<EncodedBody> | undefined;
   return {
     fileName: file.fileName,
     contentType: file.contentType,
     crsNote: file.crsNote,
     body,
     etag: strongEtag(body),
-    gzip: zipped,
-    gzipEtag: strongEtag(zipped),
-    byteSize: body.byteLength + zipped.byteLength,
+    gzipped() {
+      zipped ??= gzipAsync(body).then((bytes) => ({ body: bytes, etag: strongEtag(bytes) }));
+      return zipped;
+    },
+    byteSize: body.byteLength + Math.ceil(body.byteLength / 4),
   };
 }
