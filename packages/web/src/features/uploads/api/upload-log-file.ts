@@ -39,7 +39,9 @@ export function uploadLogFile(
     xhr.open('POST', url);
     xhr.withCredentials = true;
     xhr.setRequestHeader('Accept', 'application/json');
+    let sentBytes = 0;
     xhr.upload.onprogress = (event) => {
+      sentBytes = event.loaded;
       onProgress({ loadedBytes: event.loaded, totalBytes: event.lengthComputable ? event.total : input.file.size });
     };
     xhr.onload = () => {
@@ -63,7 +65,17 @@ export function uploadLogFile(
       );
     };
     xhr.onerror = () =>
-      reject(new ApiError(0, { code: 'network', message: 'The upload did not reach the server (network error).' }));
+      reject(
+        new ApiError(0, {
+          code: 'network',
+          // A server refusing a file over its size limit may close the connection before the browser
+          // reads its 413, so a cut-off upload says that possibility too.
+          message:
+            sentBytes > 0 && sentBytes < input.file.size
+              ? 'The connection closed before the whole file was sent: the file may be over the server’s size limit, or the network dropped.'
+              : 'The upload did not reach the server (network error).',
+        }),
+      );
     xhr.onabort = () => reject(new ApiError(0, { code: 'aborted', message: 'The upload was cancelled.' }));
     signal?.addEventListener('abort', () => xhr.abort(), { once: true });
     const form = new FormData();
