@@ -154,7 +154,7 @@ export function HomePage() {
                   to={`/projects/${project.id}`}
                   className="flex h-full flex-col gap-1 rounded-lg border border-abyss/15 bg-white p-4 shadow-sm hover:border-kelp focus-visible:outline-3 focus-visible:outline-offset-2 focus-visible:outline-kelp"
                 >
-                  <span className="font-semibold text-kelp">{project.name}</span>
+                  <span className="font-semibold text-abyss-soft">{project.name}</span>
                   <span className="text-sm text-abyss-soft">
                     {[project.client, project.site].filter(Boolean).join(' · ') || 'No client or site given'}
                   </span>

@@ -81,7 +81,7 @@ export function ProjectPage() {
   return (
     <div className="flex flex-col gap-5">
       <nav aria-label="Breadcrumb" className="text-sm">
-        <Link to="/" className="text-kelp underline-offset-2 hover:underline">
+        <Link to="/" className="text-abyss-soft underline underline-offset-2 hover:text-abyss">
           Home
         </Link>
         <span aria-hidden="true"> / </span>

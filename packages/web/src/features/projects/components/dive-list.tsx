@@ -12,7 +12,7 @@ export function DiveList({ dives, projectNames }: { dives: OrganisationDive[]; p
           <div className="min-w-0">
             <Link
               to={`/dives/${dive.id}`}
-              className="font-medium text-kelp underline-offset-2 hover:underline focus-visible:outline-3 focus-visible:outline-offset-2 focus-visible:outline-kelp"
+              className="font-medium text-abyss-soft underline underline-offset-2 hover:text-abyss focus-visible:outline-3 focus-visible:outline-offset-2 focus-visible:outline-kelp"
             >
               {diveLabel(dive)}
             </Link>

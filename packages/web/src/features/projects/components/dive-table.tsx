@@ -92,7 +92,7 @@ const COLUMNS: ColumnDef<DiveListItem>[] = [
     cell: ({ row }) => (
       <Link
         to={`/dives/${row.original.id}`}
-        className="font-medium text-kelp underline-offset-2 hover:underline focus-visible:outline-3 focus-visible:outline-offset-2 focus-visible:outline-kelp"
+        className="font-medium text-abyss-soft underline underline-offset-2 hover:text-abyss focus-visible:outline-3 focus-visible:outline-offset-2 focus-visible:outline-kelp"
       >
         {diveLabel(row.original)}
       </Link>
