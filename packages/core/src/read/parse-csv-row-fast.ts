@@ -137,7 +137,7 @@ export class FastCsvRowReader {
   }
 
   /** Reads one row (characters `lineStart` to `lineEnd` of `text`) into the batch; `false` (and nothing written) when the row needs the general path. */
-  read(text: string, lineStart: number, lineEnd: number, line: number): boolean {
+  read(text: string, lineStart: number, lineEnd: number, line: number, hasQuotes = false): boolean {
     const k = this.batch.count;
     const n = lineEnd;
     const width = this.#width;
@@ -147,14 +147,35 @@ export class FastCsvRowReader {
     let field = 0;
     let depth = Number.NaN;
     for (; field < width; field++) {
-      let end = text.indexOf(this.#delimiter, start);
-      if (end < 0 || end > n) end = n;
-      else if (field === width - 1) {
+      let end: number;
+      let quoted = false;
+      if (hasQuotes && text.charCodeAt(start) === 34) {
+        // a quoted field (RFC 4180 §2, "" inside for a quote): read here only for a coordinate,
+        // and only when the closing quote ends the field
+        end = quotedFieldEnd(text, start, n);
+        if (end < 0) return false;
+        if (end < n && !text.startsWith(this.#delimiter, end)) return false;
+        quoted = true;
+      } else {
+        end = text.indexOf(this.#delimiter, start);
+        if (end < 0 || end > n) end = n;
+        // a quote inside an unquoted field is the general path's to judge
+        if (hasQuotes) {
+          const q = text.indexOf('"', start);
+          if (q >= 0 && q < end) return false;
+        }
+      }
+      if (end < n && field === width - 1) {
         // one more field than the header: only a trailing empty one is tolerated
         if (end + 1 !== n) return false;
       }
       const kind = kinds[field] as number;
-      if (kind !== KIND_IGNORE) {
+      if (quoted && kind !== KIND_IGNORE) {
+        if (kind !== KIND_LAT && kind !== KIND_LON) return false;
+        const v = parseDegreeSymbols(text, start + 1, end - 1, this.#decimalMark2, kind === KIND_LAT, 2);
+        if (Number.isNaN(v) || (kind === KIND_LAT ? v < -90 || v > 90 : v < -180 || v > 180)) return false;
+        (targets[field] as Float64Array)[k] = v;
+      } else if (kind !== KIND_IGNORE) {
         const target = targets[field] as Float64Array;
         if (end === start) {
           if (this.#required[field] === 1) return false;
@@ -265,7 +286,14 @@ function digits(s: string, start: number, count: number): number {
  * path then reads or rejects the cell). Only the last component has decimals; minutes and seconds
  * below 60. The same value as `parseCoordinate`: sign × (degrees + minutes / 60 + seconds / 3600).
  */
-export function parseDegreeSymbols(s: string, start: number, end: number, decimalMark2: number, lat: boolean): number {
+export function parseDegreeSymbols(
+  s: string,
+  start: number,
+  end: number,
+  decimalMark2: number,
+  lat: boolean,
+  secondsMarkWidth: 1 | 2 = 1,
+): number {
   const letter = s.charCodeAt(end - 1);
   let sign: number;
   if (lat)
@@ -282,19 +310,32 @@ export function parseDegreeSymbols(s: string, start: number, end: number, decima
   if (minuteAt === end - 2) {
     min = parseDecimal(s, degreeAt + 1, minuteAt, decimalMark2);
   } else {
-    // seconds: `'`, the number, `"`, the letter
-    if (s.charCodeAt(end - 2) !== 34 || end - 2 <= minuteAt + 1) return Number.NaN;
+    // seconds: `'`, the number, `"` (`""` inside a quoted CSV field), the letter
+    const secondsEnd = end - 1 - secondsMarkWidth;
+    for (let i = secondsEnd; i < end - 1; i++) if (s.charCodeAt(i) !== 34) return Number.NaN;
+    if (secondsEnd <= minuteAt + 1) return Number.NaN;
     min = parseDigits(s, degreeAt + 1, minuteAt);
-    sec = parseDecimal(s, minuteAt + 1, end - 2, decimalMark2);
+    sec = parseDecimal(s, minuteAt + 1, secondsEnd, decimalMark2);
   }
   // a decimal mark must have digits after it (`01.'` is not a number)
-  const last = s.charCodeAt(minuteAt === end - 2 ? minuteAt - 1 : end - 3);
+  const last = s.charCodeAt(minuteAt === end - 2 ? minuteAt - 1 : end - 2 - secondsMarkWidth);
   if (last < 48 || last > 57) return Number.NaN;
   const first = s.charCodeAt(degreeAt + 1);
   if (first === 43 || first === 45 || s.charCodeAt(minuteAt + 1) === 43 || s.charCodeAt(minuteAt + 1) === 45)
     return Number.NaN;
   if (!(deg >= 0) || !(min >= 0 && min < 60) || !(sec >= 0 && sec < 60)) return Number.NaN;
   return sign * (deg + min / 60 + sec / 3600);
+}
+
+/** The index after the closing quote of the quoted field opening at `start`, or -1 when it does not close before `n`. */
+function quotedFieldEnd(s: string, start: number, n: number): number {
+  let i = start + 1;
+  for (;;) {
+    const q = s.indexOf('"', i);
+    if (q < 0 || q >= n) return -1;
+    if (q + 1 < n && s.charCodeAt(q + 1) === 34) i = q + 2;
+    else return q + 1;
+  }
 }
 
 /** Plain digits (no sign, no decimals, at most 15) between `start` and `end`, or `NaN`. */

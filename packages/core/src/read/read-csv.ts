@@ -255,7 +255,7 @@ export function* readCsvEvents(
       continue;
     }
     if (fast !== undefined) {
-      if (c.quoteCount === 0 && fast.read(src, start, end, line)) {
+      if (fast.read(src, start, end, line, c.quoteCount !== 0)) {
         if (fast.full) {
           yield { kind: 'fix-batch', batch: fast.batch };
           fast.reset();
