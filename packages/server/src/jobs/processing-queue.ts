@@ -150,6 +150,7 @@ export async function startProcessingWorker(
     await options.takeJobsAfter;
     if (stopped) return;
     workerId = await subscribe();
+    if (stopped) await boss.offWork(PROCESSING_QUEUE);
   })();
   // A failure to start taking jobs is logged and shown by `ready` (it rejects).
   taking.catch((error: unknown) => log?.error({ err: error }, 'the processing worker could not start'));
@@ -192,9 +193,9 @@ export async function startProcessingWorker(
       if (workerId !== undefined) boss.notifyWorker(workerId);
     },
     stop: async () => {
+      // Does not wait for threads still loading: the worker then never starts taking jobs.
       stopped = true;
       clearInterval(reaper);
-      await taking.catch(() => undefined);
       if (workerId !== undefined) await boss.offWork(PROCESSING_QUEUE);
     },
   };
