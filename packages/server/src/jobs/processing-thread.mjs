@@ -8,7 +8,8 @@ import { register } from 'tsx/esm/api';
 // gets about half the share of the event loop that answers requests (CFS weights 526 and 1024). Mild on
 // purpose: on a machine busy with other work a higher value would starve processing altogether.
 try {
-  setPriority(3);
+  // Elsewhere the nice value is the whole process's: leave it alone there.
+  if (process.platform === 'linux') setPriority(3);
 } catch {
   // Not allowed here (some containers): run at the process's priority.
 }
