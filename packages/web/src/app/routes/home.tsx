@@ -67,7 +67,7 @@ function DiveSection({
 
 /** The signed-in start page: dives needing attention, recent dives and the organisation's projects. */
 export function HomePage() {
-  const { membership, memberships, switchTo } = useCurrentOrganisation();
+  const { membership } = useCurrentOrganisation();
   const organisationId = membership?.organisationId;
   const projects = useProjects(organisationId);
   const recent = useOrganisationDives(organisationId, RECENT);
@@ -88,22 +88,7 @@ export function HomePage() {
           <h1 className="text-3xl font-semibold">{membership.organisationName}</h1>
           <p className="mt-1 text-abyss-soft">Your role here: {membership.role}</p>
         </div>
-        {memberships.length > 1 ? (
-          <label className="flex flex-col gap-1 text-sm font-medium">
-            Organisation
-            <select
-              value={membership.organisationId}
-              onChange={(e) => switchTo(e.target.value)}
-              className="min-h-9 rounded-md border border-abyss/30 bg-white px-2 font-normal focus-visible:outline-3 focus-visible:outline-offset-1 focus-visible:outline-kelp"
-            >
-              {memberships.map((m) => (
-                <option key={m.organisationId} value={m.organisationId}>
-                  {m.organisationName}
-                </option>
-              ))}
-            </select>
-          </label>
-        ) : null}
+        {/* Switching organisation is the header's chooser, on every page. */}
       </div>
 
       <div className="grid gap-8 lg:grid-cols-2">
