@@ -1,41 +1,22 @@
-import { useState } from 'react';
-import { buttonStyles } from '../../../components/ui/button-styles';
-import { FormFailure } from '../../../components/ui/form-failure';
+import { ConfirmAction } from '../../../components/ui/confirm-action';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/query-states';
 import { formatDateTime } from '../../../lib/format-date-time';
 import { type Invitation, useInvitations } from '../api/list-invitations';
 import { useRevokeInvitation } from '../api/revoke-invitation';
 
 function WithdrawButton({ organisationId, invitation }: { organisationId: string; invitation: Invitation }) {
-  const [confirming, setConfirming] = useState(false);
   const revoke = useRevokeInvitation();
-  if (!confirming)
-    return (
-      <button
-        type="button"
-        className={buttonStyles('secondary')}
-        aria-label={`Withdraw the invitation to ${invitation.email}`}
-        onClick={() => setConfirming(true)}
-      >
-        Withdraw
-      </button>
-    );
   return (
-    <fieldset className="flex flex-wrap items-center gap-2">
-      <legend className="sr-only">Confirm withdrawing the invitation to {invitation.email}</legend>
-      <button
-        type="button"
-        className={buttonStyles('primary', 'bg-[#9c211a] hover:bg-[#7d1a14]')}
-        disabled={revoke.isPending}
-        onClick={() => revoke.mutate({ organisationId, invitationId: invitation.id })}
-      >
-        {revoke.isPending ? 'Withdrawing…' : 'Yes, withdraw it'}
-      </button>
-      <button type="button" className={buttonStyles('quiet')} onClick={() => setConfirming(false)}>
-        Keep it
-      </button>
-      <FormFailure error={revoke.error} />
-    </fieldset>
+    <ConfirmAction
+      label="Withdraw"
+      accessibleLabel={`Withdraw the invitation to ${invitation.email}`}
+      legend={`Confirm withdrawing the invitation to ${invitation.email}`}
+      confirmLabel="Yes, withdraw it"
+      pendingLabel="Withdrawing…"
+      isPending={revoke.isPending}
+      error={revoke.error}
+      onConfirm={() => revoke.mutate({ organisationId, invitationId: invitation.id })}
+    />
   );
 }
 

@@ -1,5 +1,6 @@
 import { useState } from 'react';
 import { buttonStyles } from '../../../components/ui/button-styles';
+import { ConfirmAction } from '../../../components/ui/confirm-action';
 import { fieldStyles } from '../../../components/ui/field-styles';
 import { FormFailure } from '../../../components/ui/form-failure';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/query-states';
@@ -49,35 +50,19 @@ function RoleCell({ organisationId, member }: { organisationId: string; member: 
 }
 
 function RemoveCell({ organisationId, member }: { organisationId: string; member: Member }) {
-  const [confirming, setConfirming] = useState(false);
   const remove = useRemoveMember();
-  if (!confirming)
-    return (
-      <button
-        type="button"
-        className={buttonStyles('secondary')}
-        aria-label={`Remove ${member.displayName}`}
-        onClick={() => setConfirming(true)}
-      >
-        Remove
-      </button>
-    );
   return (
-    <fieldset className="flex flex-wrap items-center gap-2">
-      <legend className="sr-only">Confirm removing {member.displayName}</legend>
-      <button
-        type="button"
-        className={buttonStyles('primary', 'bg-[#9c211a] hover:bg-[#7d1a14]')}
-        disabled={remove.isPending}
-        onClick={() => remove.mutate({ organisationId, userId: member.userId })}
-      >
-        {remove.isPending ? 'Removing…' : `Yes, remove ${member.displayName}`}
-      </button>
-      <button type="button" className={buttonStyles('quiet')} onClick={() => setConfirming(false)}>
-        Keep
-      </button>
-      <FormFailure error={remove.error} />
-    </fieldset>
+    <ConfirmAction
+      label="Remove"
+      accessibleLabel={`Remove ${member.displayName}`}
+      legend={`Confirm removing ${member.displayName}`}
+      confirmLabel={`Yes, remove ${member.displayName}`}
+      pendingLabel="Removing…"
+      keepLabel="Keep"
+      isPending={remove.isPending}
+      error={remove.error}
+      onConfirm={() => remove.mutate({ organisationId, userId: member.userId })}
+    />
   );
 }
 

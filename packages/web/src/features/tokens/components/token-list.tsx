@@ -1,6 +1,4 @@
-import { useState } from 'react';
-import { buttonStyles } from '../../../components/ui/button-styles';
-import { FormFailure } from '../../../components/ui/form-failure';
+import { ConfirmAction } from '../../../components/ui/confirm-action';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/query-states';
 import { formatDateTime } from '../../../lib/format-date-time';
 import { type ApiToken, useTokens } from '../api/list-tokens';
@@ -13,36 +11,19 @@ function tokenState(token: ApiToken, now: number): 'active' | 'revoked' | 'expir
 }
 
 function RevokeCell({ organisationId, token }: { organisationId: string; token: ApiToken }) {
-  const [confirming, setConfirming] = useState(false);
   const revoke = useRevokeToken();
-  if (!confirming)
-    return (
-      <button
-        type="button"
-        className={buttonStyles('secondary')}
-        aria-label={`Revoke ${token.name}`}
-        onClick={() => setConfirming(true)}
-      >
-        Revoke
-      </button>
-    );
   return (
-    <fieldset className="flex flex-wrap items-center gap-2">
-      <legend className="sr-only">Confirm revoking {token.name}</legend>
-      <span className="text-sm">Pipelines using it stop working at once.</span>
-      <button
-        type="button"
-        className={buttonStyles('primary', 'bg-[#9c211a] hover:bg-[#7d1a14]')}
-        disabled={revoke.isPending}
-        onClick={() => revoke.mutate({ organisationId, tokenId: token.id }, { onSuccess: () => setConfirming(false) })}
-      >
-        {revoke.isPending ? 'Revoking…' : `Yes, revoke ${token.name}`}
-      </button>
-      <button type="button" className={buttonStyles('quiet')} onClick={() => setConfirming(false)}>
-        Keep it
-      </button>
-      <FormFailure error={revoke.error} />
-    </fieldset>
+    <ConfirmAction
+      label="Revoke"
+      accessibleLabel={`Revoke ${token.name}`}
+      legend={`Confirm revoking ${token.name}`}
+      warning="Pipelines using it stop working at once."
+      confirmLabel={`Yes, revoke ${token.name}`}
+      pendingLabel="Revoking…"
+      isPending={revoke.isPending}
+      error={revoke.error}
+      onConfirm={(done) => revoke.mutate({ organisationId, tokenId: token.id }, { onSuccess: done })}
+    />
   );
 }
 
