@@ -1,33 +1,13 @@
 import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launchBrowser } from '../support/browser.js';
+import { canvasPixels } from '../support/browser-pages.js';
 import { createTestDatabase } from '../support/test-database.js';
 import { startWebServer } from '../support/web-server.js';
 
 const SCREENSHOTS = fileURLToPath(new URL('../../.test-artifacts/screenshots', import.meta.url));
-
-/** Pixels of a canvas that differ from the white background, and those close to the highlight sand (#f2c879). */
-function canvasPixels(page: Page, testId: string): Promise<{ inked: number; highlight: number; total: number }> {
-  return page.getByTestId(testId).evaluate((element) => {
-    const canvas = element as HTMLCanvasElement;
-    const ctx = canvas.getContext('2d');
-    if (ctx === null) return { inked: 0, highlight: 0, total: 0 };
-    const { data } = ctx.getImageData(0, 0, canvas.width, canvas.height);
-    let inked = 0;
-    let highlight = 0;
-    for (let i = 0; i < data.length; i += 4) {
-      const r = data[i] as number;
-      const g = data[i + 1] as number;
-      const b = data[i + 2] as number;
-      if (r < 235 || g < 235 || b < 235) inked++;
-      if (Math.abs(r - 0xf2) < 6 && Math.abs(g - 0xc8) < 6 && Math.abs(b - 0x79) < 6) highlight++;
-    }
-    return { inked, highlight, total: data.length / 4 };
-  });
-}
 
 describe('dive page (preview) in headless Chromium', () => {
   let database: Awaited<ReturnType<typeof createTestDatabase>>;

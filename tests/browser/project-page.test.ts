@@ -8,6 +8,7 @@ import { DEMO_PASSWORD, DEMO_USERS, loadDemoData } from '@leadline/server';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launchBrowser } from '../support/browser.js';
+import { signInThroughPage } from '../support/browser-pages.js';
 import { createTestDatabase } from '../support/test-database.js';
 import { startWebServer } from '../support/web-server.js';
 
@@ -82,14 +83,6 @@ describe('project page: table, filters, selection and zip download, upload contr
     if (work) rmSync(work, { recursive: true, force: true });
   });
 
-  async function signIn(page: Page, email: string): Promise<void> {
-    await page.goto(`${web.baseUrl}/sign-in`);
-    await page.getByLabel('E-mail address').fill(email);
-    await page.getByLabel('Password').fill(DEMO_PASSWORD);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await expect.poll(() => page.getByRole('button', { name: 'Sign out' }).count()).toBe(1);
-  }
-
   const uploadUrl = () => `/api/v1/organisations/${organisationId}/projects/${projectId}/logs`;
   const projectDives = () =>
     database
@@ -106,7 +99,7 @@ describe('project page: table, filters, selection and zip download, upload contr
   it('an editor uploads logs, finds them on the home page, then sorts, filters, chooses columns and downloads two dives as one zip', async () => {
     const page = await browser.context.newPage();
     await page.setViewportSize({ width: 1280, height: 900 });
-    await signIn(page, editor.email);
+    await signInThroughPage(page, web.baseUrl, editor.email, DEMO_PASSWORD);
 
     // Simulated dives (core's season planner) in the simulator's plain CSV layout.
     const files = planSeason({ seed: 77, dives: DIVES, diveMinutes: 6, dialect: 'csv' }).map((planned) => {
@@ -216,7 +209,7 @@ describe('project page: table, filters, selection and zip download, upload contr
     const page = await browser.context.newPage();
     // A tablet on deck, upright: the page fits its width (the table scrolls inside its own box if it must).
     await page.setViewportSize({ width: 768, height: 1024 });
-    await signIn(page, viewer.email);
+    await signInThroughPage(page, web.baseUrl, viewer.email, DEMO_PASSWORD);
     await page.goto(`${web.baseUrl}/projects/${projectId}`);
     await expect.poll(() => rowIds(page).then((ids) => ids.length)).toBe(DIVES);
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(768);

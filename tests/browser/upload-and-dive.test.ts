@@ -9,32 +9,13 @@ import { DEMO_PASSWORD, DEMO_USERS, loadDemoData } from '@leadline/server';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launchBrowser } from '../support/browser.js';
+import { canvasPixels, signInThroughPage } from '../support/browser-pages.js';
 import { createTestDatabase } from '../support/test-database.js';
 import { startWebServer } from '../support/web-server.js';
 
 const ARTIFACTS = fileURLToPath(new URL('../../.test-artifacts/screenshots', import.meta.url));
 const DOCS_SCREENSHOTS = fileURLToPath(new URL('../../docs/screenshots', import.meta.url));
 const GPX_XSD = fileURLToPath(new URL('../../packages/core/src/read/schemas/gpx-1.1.xsd', import.meta.url));
-
-/** Pixels of a canvas that differ from the white background, and those close to the highlight sand (#f2c879). */
-function canvasPixels(page: Page, testId: string): Promise<{ inked: number; highlight: number; total: number }> {
-  return page.getByTestId(testId).evaluate((element) => {
-    const canvas = element as HTMLCanvasElement;
-    const ctx = canvas.getContext('2d');
-    if (ctx === null) return { inked: 0, highlight: 0, total: 0 };
-    const { data } = ctx.getImageData(0, 0, canvas.width, canvas.height);
-    let inked = 0;
-    let highlight = 0;
-    for (let i = 0; i < data.length; i += 4) {
-      const r = data[i] as number;
-      const g = data[i + 1] as number;
-      const b = data[i + 2] as number;
-      if (r < 235 || g < 235 || b < 235) inked++;
-      if (Math.abs(r - 0xf2) < 6 && Math.abs(g - 0xc8) < 6 && Math.abs(b - 0x79) < 6) highlight++;
-    }
-    return { inked, highlight, total: data.length / 4 };
-  });
-}
 
 /** Saves a picture for the test run and, for the README, a copy under docs/screenshots. */
 async function savePicture(page: Page, name: string): Promise<void> {
@@ -73,17 +54,9 @@ describe('upload a log, follow its processing, open and download the dive in hea
     if (work) rmSync(work, { recursive: true, force: true });
   });
 
-  async function signIn(page: Page, email: string): Promise<void> {
-    await page.goto(`${web.baseUrl}/sign-in`);
-    await page.getByLabel('E-mail address').fill(email);
-    await page.getByLabel('Password').fill(DEMO_PASSWORD);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await expect.poll(() => page.getByRole('button', { name: 'Sign out' }).count()).toBe(1);
-  }
-
   it('tells a viewer that their role cannot upload', async () => {
     const page = await browser.context.newPage();
-    await signIn(page, viewer.email);
+    await signInThroughPage(page, web.baseUrl, viewer.email, DEMO_PASSWORD);
     expect(await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Upload' }).count()).toBe(0);
     await page.goto(`${web.baseUrl}/upload`);
     await expect.poll(() => page.getByRole('heading', { name: 'Your role cannot upload' }).count()).toBe(1);
@@ -104,7 +77,7 @@ describe('upload a log, follow its processing, open and download the dive in hea
     await page.setViewportSize({ width: 1280, height: 900 });
     const pageErrors: string[] = [];
     page.on('pageerror', (error) => pageErrors.push(error.message));
-    await signIn(page, editor.email);
+    await signInThroughPage(page, web.baseUrl, editor.email, DEMO_PASSWORD);
 
     // Upload page from the navigation; the project chooser lists the organisation's projects.
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Upload' }).click();
