@@ -21,7 +21,7 @@ export const WEB_DIST = fileURLToPath(new URL('../../packages/web/dist', import.
  */
 export async function startWebServer(
   database: { db: Knex; url: string },
-  options: { processing?: boolean } = {},
+  options: { processing?: boolean; tileUrl?: string; tileAttribution?: string } = {},
 ): Promise<{ baseUrl: string; close: () => Promise<void> }> {
   const { db, url } = database;
   if (!existsSync(`${WEB_DIST}/index.html`))
@@ -47,6 +47,8 @@ export async function startWebServer(
     publicUrl: baseUrl,
     logger: pino({ level: 'silent' }),
     webDist: WEB_DIST,
+    tileUrl: options.tileUrl,
+    tileAttribution: options.tileAttribution,
     ...(processing === undefined ? {} : { processingQueue: processing.queue }),
   });
   server.on('request', app);

@@ -27,6 +27,7 @@ import { createMailboxRoutes } from './routes/mailbox-routes.js';
 import { createMemberRoutes } from './routes/member-routes.js';
 import { createOrganisationRoutes } from './routes/organisation-routes.js';
 import { createProjectRoutes } from './routes/project-routes.js';
+import { createSiteSettingsRoutes } from './routes/site-settings-routes.js';
 import { authenticateApiToken } from './services/api-token-service.js';
 import { type DiveDeps, queueLogProcessing } from './services/dive-service.js';
 import { RenderCache } from './services/render-cache.js';
@@ -73,6 +74,10 @@ export interface AppDependencies {
   webDist?: string | undefined;
   /** Where processing runs are sent (pg-boss); without it runs wait as `queued` for a worker. */
   processingQueue?: ProcessingQueue | undefined;
+  /** XYZ template ({z}/{x}/{y}) of background map tiles; the browser may load images from its host. */
+  tileUrl?: string | undefined;
+  /** Credit shown over the tiles. */
+  tileAttribution?: string | undefined;
 }
 
 /** The app and the route table it serves (the authorisation matrix test walks the table). */
@@ -109,6 +114,11 @@ function limiter(setting: RateLimitSetting, what: string, per: 'address' | 'acco
 function accountOf(body: unknown): string {
   const email = typeof body === 'object' && body !== null ? (body as { email?: unknown }).email : undefined;
   return typeof email === 'string' ? email.trim().toLowerCase() : '';
+}
+
+/** The scheme, host and port of a tile template (its placeholders are only in the path). */
+function tileOrigin(template: string): string {
+  return new URL(template.replace(/\{[zxy]\}/g, '0')).origin;
 }
 
 function chain(first: RequestHandler, second: RequestHandler): RequestHandler {
@@ -173,6 +183,7 @@ export function buildApp(deps: AppDependencies): BuiltApp {
     ...createDiveRoutes(archive),
     ...createConvertRoutes(ctx.now),
     ...createCrsRoutes(),
+    ...createSiteSettingsRoutes({ tileUrl: deps.tileUrl ?? null, tileAttribution: deps.tileAttribution ?? null }),
     ...(deps.fakeMailbox === undefined ? [] : createMailboxRoutes(deps.fakeMailbox)),
   ];
   let openApi: unknown;
@@ -202,7 +213,8 @@ export function buildApp(deps: AppDependencies): BuiltApp {
         directives: {
           // Everything the site needs ships with it: no outside host, not even for fonts.
           'default-src': ["'self'"],
-          'img-src': ["'self'", 'data:', 'blob:'],
+          // The configured tile server, and only it, may serve images (the optional background map).
+          'img-src': ["'self'", 'data:', 'blob:', ...(deps.tileUrl === undefined ? [] : [tileOrigin(deps.tileUrl)])],
           'font-src': ["'self'", 'data:'],
           'upgrade-insecure-requests': null,
         },

@@ -36,4 +36,23 @@ describe('parseConfig', () => {
     });
     expect(parseConfig({ ...production, COOKIE_SECURE: 'false' }).cookieSecure).toBe(false);
   });
+
+  it('takes an optional background tile template with {z}, {x} and {y} over http(s), and refuses others', () => {
+    expect(parseConfig(BASE).tileUrl).toBeUndefined();
+    const ok = parseConfig({
+      ...BASE,
+      TILE_URL: 'http://127.0.0.1:9000/{z}/{x}/{y}.png',
+      TILE_ATTRIBUTION: 'Hollowtide charts',
+    });
+    expect(ok).toMatchObject({
+      tileUrl: 'http://127.0.0.1:9000/{z}/{x}/{y}.png',
+      tileAttribution: 'Hollowtide charts',
+    });
+    expect(() => parseConfig({ ...BASE, TILE_URL: 'http://tiles.example/{z}/{x}.png' })).toThrow(
+      /TILE_URL: TILE_URL must contain \{z\}, \{x\} and \{y\}/,
+    );
+    expect(() => parseConfig({ ...BASE, TILE_URL: 'ftp://tiles.example/{z}/{x}/{y}.png' })).toThrow(
+      /TILE_URL: TILE_URL must start with http:\/\/ or https:\/\//,
+    );
+  });
 });

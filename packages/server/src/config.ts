@@ -20,6 +20,15 @@ const ConfigSchema = z.object({
   PUBLIC_URL: z.url('PUBLIC_URL must be a URL such as https://leadline.example.org').optional(),
   UPLOAD_LIMIT_MB: z.coerce.number().positive().max(4096).default(100),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  TILE_URL: z
+    .string()
+    .regex(/^https?:\/\/[^/{}]+/, 'TILE_URL must start with http:// or https:// and a host')
+    .refine(
+      (url) => ['{z}', '{x}', '{y}'].every((part) => url.includes(part)),
+      'TILE_URL must contain {z}, {x} and {y}, e.g. https://tiles.example.org/{z}/{x}/{y}.png',
+    )
+    .optional(),
+  TILE_ATTRIBUTION: z.string().max(200, 'TILE_ATTRIBUTION must be at most 200 characters').optional(),
 });
 
 /** Settings production cannot do without (development has safe stand-ins); checked beside the schema. */
@@ -48,6 +57,10 @@ export interface ServerConfig {
   publicUrl: string;
   uploadLimitBytes: number;
   logLevel: string;
+  /** XYZ template ({z}/{x}/{y}) of background map tiles for the plan view; none when absent. */
+  tileUrl: string | undefined;
+  /** Credit shown over the tiles. */
+  tileAttribution: string | undefined;
 }
 
 /** Thrown with every problem in the environment listed, one per line. */
@@ -79,5 +92,7 @@ export function parseConfig(env: NodeJS.ProcessEnv): ServerConfig {
     publicUrl: (c.PUBLIC_URL ?? `http://${c.HOST}:${c.PORT}`).replace(/\/+$/, ''),
     uploadLimitBytes: Math.round(c.UPLOAD_LIMIT_MB * 1024 * 1024),
     logLevel: c.LOG_LEVEL,
+    tileUrl: c.TILE_URL,
+    tileAttribution: c.TILE_ATTRIBUTION,
   };
 }

@@ -62,6 +62,8 @@ const app = createApp({
   uploadLimitBytes: config.uploadLimitBytes,
   logger,
   webDist: config.webDist,
+  tileUrl: config.tileUrl,
+  tileAttribution: config.tileAttribution,
 });
 
 const server: Server = app.listen(config.port, config.host);

@@ -113,6 +113,8 @@ const INTENDED_ACCESS: Record<string, string> = {
   'GET /dives/:diveId': 'signed-in',
   // A registry look-up, no organisation's data: anyone signed in, and tokens of any scope.
   'GET /crs': 'signed-in',
+  // The background map's tile template: the browser loads the tiles before anyone signs in (previews).
+  'GET /site-settings': 'public',
 };
 
 const RANK: Record<Role, number> = { viewer: 0, editor: 1, admin: 2 };

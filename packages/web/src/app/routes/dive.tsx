@@ -6,6 +6,7 @@ import { useDive } from '../../features/dives/api/get-dive';
 import { DiveArchivePanels } from '../../features/dives/components/dive-archive-panels';
 import { DiveView } from '../../features/dives/components/dive-view';
 import type { DiveViewData } from '../../features/dives/types';
+import { useTileSource } from '../../features/site-settings/api/get-site-settings';
 
 function firstPosition(data: DiveViewData): { latDeg: number; lonDeg: number } | undefined {
   const { latDeg, lonDeg } = data.vehicle;
@@ -22,6 +23,7 @@ export function DivePage() {
   const { diveId = '' } = useParams();
   const dive = useDive(diveId);
   const me = useMe();
+  const tileSource = useTileSource();
   if (dive.isPending) return <LoadingState label="Loading the dive…" />;
   if (dive.isError)
     return <ErrorState title="The dive could not be loaded" error={dive.error} onRetry={() => dive.refetch()} />;
@@ -29,7 +31,7 @@ export function DivePage() {
   const role = me.data?.memberships.find((m) => m.organisationId === archive?.organisationId)?.role;
   return (
     <div className="flex flex-col gap-8">
-      <DiveView data={dive.data} />
+      <DiveView data={dive.data} tileSource={tileSource} />
       {archive ? (
         <DiveArchivePanels
           diveId={dive.data.id}

@@ -2,6 +2,7 @@ import { useSearchParams } from 'react-router-dom';
 import { ErrorState, LoadingState } from '../../components/ui/query-states';
 import { PREVIEW_FIX_LIMITS, usePreviewDive } from '../../features/dives/api/get-preview-dive';
 import { DiveView } from '../../features/dives/components/dive-view';
+import { useTileSource } from '../../features/site-settings/api/get-site-settings';
 
 function readInteger(value: string | null, fallback: number, min: number, max: number): number {
   const parsed = value === null ? Number.NaN : Number.parseInt(value, 10);
@@ -19,6 +20,7 @@ export function PreviewDivePage() {
   );
   const seed = readInteger(params.get('seed'), 1, 0, 2 ** 31 - 1);
   const dive = usePreviewDive(fixCount, seed);
+  const tileSource = useTileSource();
   const banner = (
     <div role="note" aria-label="Preview" className="rounded-lg border-2 border-dashed border-sand-deep bg-sand/25 p-4">
       <p className="font-semibold">
@@ -49,5 +51,5 @@ export function PreviewDivePage() {
         <ErrorState title="The preview dive could not be made" error={dive.error} onRetry={() => dive.refetch()} />
       </div>
     );
-  return <DiveView data={dive.data} banner={banner} />;
+  return <DiveView data={dive.data} banner={banner} tileSource={tileSource} />;
 }

@@ -8,7 +8,7 @@ import type { ColourMode, DiveFinding, DiveViewData, GridCrsChoice } from '../ty
 import { ColourLegend } from './colour-legend';
 import { DepthProfile } from './depth-profile';
 import { FindingsList } from './findings-list';
-import { PlanView } from './plan-view';
+import { PlanView, type TileSource } from './plan-view';
 import { S44Panel } from './s44-panel';
 import { SeverityBadge } from './severity-badge';
 import { SummaryPanel } from './summary-panel';
@@ -19,6 +19,8 @@ export interface DiveViewProps {
   data: DiveViewData;
   /** Shown above the title, e.g. a preview notice. */
   banner?: ReactNode;
+  /** The configured background map for the plan view; none when absent. */
+  tileSource?: TileSource | null | undefined;
 }
 
 function gridChoices(data: DiveViewData, originLatDeg: number, originLonDeg: number): GridCrsChoice[] {
@@ -28,7 +30,7 @@ function gridChoices(data: DiveViewData, originLatDeg: number, originLonDeg: num
 }
 
 /** A whole dive: plan view, depth profile, scrubber, findings, summary, S-44 shares and the safety caution. */
-export function DiveView({ data, banner }: DiveViewProps) {
+export function DiveView({ data, banner, tileSource }: DiveViewProps) {
   const plot = useMemo(() => {
     performance.mark('leadline:prepare-start');
     const prepared = preparePlotData(data);
@@ -143,6 +145,7 @@ export function DiveView({ data, banner }: DiveViewProps) {
             highlight={highlight}
             cursorIndex={cursorIndex}
             description={planDescription}
+            tileSource={tileSource}
           />
           <ColourLegend data={plot} colourMode={colourMode} />
           <TimeScrubber data={plot} cursorIndex={cursorIndex} onCursorChange={setCursorIndex} />

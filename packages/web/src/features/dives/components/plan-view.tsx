@@ -2,6 +2,7 @@ import { type KeyboardEvent, type PointerEvent, useCallback, useEffect, useId, u
 import { buttonStyles } from '../../../components/ui/button-styles';
 import { drawPlanView, type PlanDrawStats } from '../lib/draw-plan-view';
 import type { GridSystem } from '../lib/grid-system';
+import { drawMapTiles, TileImages } from '../lib/map-tiles';
 import { fitView, type PlanViewState, panBy, zoomAt } from '../lib/plan-view-state';
 import type { PlanBounds, PlotData } from '../lib/prepare-plot-data';
 import { chooseScaleBar } from '../lib/scale-bar';
@@ -18,6 +19,14 @@ export interface PlanViewProps {
   cursorIndex: number;
   /** Short description of the colouring and tracks for the accessible name. */
   description: string;
+  /** The configured background map (XYZ tile template and its credit); no tile is asked for without it. */
+  tileSource?: TileSource | null | undefined;
+}
+
+/** A background map: an XYZ template ({z}/{x}/{y}) and the credit to show over it. */
+export interface TileSource {
+  url: string;
+  attribution: string | null;
 }
 
 const ZOOM_STEP = 1.5;
@@ -44,15 +53,21 @@ function spanBounds(data: PlotData, [from, to]: [number, number]): PlanBounds | 
  * unit's track dashed, flagged fixes marked by severity, a labelled grid, scale bar and north arrow.
  * Wheel, drag and pinch zoom and pan; with focus, arrow keys pan, + and − zoom and 0 fits the dive.
  */
-export function PlanView({ data, colourMode, grid, highlight, cursorIndex, description }: PlanViewProps) {
+export function PlanView({ data, colourMode, grid, highlight, cursorIndex, description, tileSource }: PlanViewProps) {
   const containerRef = useRef<HTMLDivElement>(null);
   const canvasRef = useRef<HTMLCanvasElement>(null);
   const size = useElementSize(containerRef, { width: 640, height: 420 });
   const [view, setView] = useState<PlanViewState>(() => fitView(data.bounds, size.width, size.height));
-  const [stats, setStats] = useState<(PlanDrawStats & { draws: number }) | undefined>(undefined);
+  const [stats, setStats] = useState<(PlanDrawStats & { draws: number; tilesDrawn: number }) | undefined>(undefined);
   const fittedFor = useRef<{ data: PlotData; measured: boolean } | undefined>(undefined);
   const helpId = useId();
   const drawnFor = useRef<PlotData | undefined>(undefined);
+  const mapCheckboxId = useId();
+  const [showMap, setShowMap] = useState(true);
+  // Bumped when a tile arrives, to draw again.
+  const [tilesArrived, setTilesArrived] = useState(0);
+  const tileImages = useRef<TileImages | undefined>(undefined);
+  const tileUrl = showMap ? tileSource?.url : undefined;
 
   // Fit to the dive when the data arrive or the first real size is known.
   useEffect(() => {
@@ -84,13 +99,30 @@ export function PlanView({ data, colourMode, grid, highlight, cursorIndex, descr
   }, [data, highlightStart, highlightEnd, size.width, size.height]);
 
   // Draw on the next frame after anything changes.
+  // biome-ignore lint/correctness/useExhaustiveDependencies: tilesArrived draws again when a tile has loaded.
   useEffect(() => {
     const canvas = canvasRef.current;
     if (canvas === null) return;
     const frame = requestAnimationFrame(() => {
       const ctx = prepareCanvas(canvas, size.width, size.height);
       if (ctx === null) return;
+      let tiles = { wanted: 0, drawn: 0 };
+      const background =
+        tileUrl === undefined
+          ? undefined
+          : (context: CanvasRenderingContext2D) => {
+              tileImages.current ??= new TileImages(() => setTilesArrived((count) => count + 1));
+              tiles = drawMapTiles(context, {
+                frame: data.frame,
+                view,
+                widthPx: size.width,
+                heightPx: size.height,
+                template: tileUrl,
+                images: tileImages.current,
+              });
+            };
       const drawn = drawPlanView(ctx, {
+        background,
         data,
         view,
         widthPx: size.width,
@@ -105,10 +137,10 @@ export function PlanView({ data, colourMode, grid, highlight, cursorIndex, descr
         // Read by the browser test to report how long the page took to become usable.
         performance.mark('leadline:plan-first-draw', { detail: { fixes: data.n } });
       }
-      setStats((old) => ({ ...drawn, draws: (old?.draws ?? 0) + 1 }));
+      setStats((old) => ({ ...drawn, tilesDrawn: tiles.drawn, draws: (old?.draws ?? 0) + 1 }));
     });
     return () => cancelAnimationFrame(frame);
-  }, [data, view, size.width, size.height, colourMode, grid, highlight, cursorIndex]);
+  }, [data, view, size.width, size.height, colourMode, grid, highlight, cursorIndex, tileUrl, tilesArrived]);
 
   // Wheel zoom needs a non-passive listener to keep the page from scrolling.
   useEffect(() => {
@@ -210,6 +242,18 @@ export function PlanView({ data, colourMode, grid, highlight, cursorIndex, descr
     <section aria-label="Plan view" className="flex flex-col gap-2">
       <div className="flex flex-wrap items-center gap-2">
         <h2 className="mr-auto text-base font-semibold">Plan view</h2>
+        {tileSource ? (
+          <label htmlFor={mapCheckboxId} className="flex items-center gap-1.5 text-sm">
+            <input
+              id={mapCheckboxId}
+              type="checkbox"
+              checked={showMap}
+              onChange={(event) => setShowMap(event.target.checked)}
+              className="size-4 accent-kelp"
+            />
+            Background map
+          </label>
+        ) : null}
         <button type="button" className={buttonStyles()} onClick={() => zoomCentre(ZOOM_STEP)} aria-label="Zoom in">
           +
         </button>
@@ -244,6 +288,7 @@ export function PlanView({ data, colourMode, grid, highlight, cursorIndex, descr
           data-metres-per-px={view.metresPerPx}
           data-drawn-vertices={stats?.drawnVertices ?? 0}
           data-draw-count={stats?.draws ?? 0}
+          data-tiles-drawn={stats?.tilesDrawn ?? 0}
           data-highlight={highlight ? `${highlight[0]}-${highlight[1]}` : ''}
           className="block h-full w-full cursor-grab touch-none active:cursor-grabbing"
           style={{ width: '100%', height: '100%' }}
@@ -260,6 +305,14 @@ export function PlanView({ data, colourMode, grid, highlight, cursorIndex, descr
           <div className="h-1.5 border-x-2 border-b-2 border-abyss" style={{ width: `${scaleBar.widthPx}px` }} />
           <span>{scaleBar.label}</span>
         </div>
+        {tileUrl !== undefined && tileSource?.attribution ? (
+          <div
+            className="pointer-events-none absolute bottom-1 left-1 max-w-[60%] truncate rounded bg-white/90 px-1.5 py-0.5 text-xs text-abyss"
+            data-testid="map-attribution"
+          >
+            {tileSource.attribution}
+          </div>
+        ) : null}
       </div>
       <p id={helpId} className="text-xs text-abyss-soft">
         Drag or use the arrow keys to pan; wheel, pinch, + or − to zoom; 0 fits the dive. Grid: {grid.label}. 1 px ≈{' '}

@@ -23,6 +23,8 @@ export interface PlanDrawing {
   highlight: [number, number] | undefined;
   /** The scrubber's fix. */
   cursorIndex: number;
+  /** Paints under the grid and tracks (the optional background map). */
+  background?: ((ctx: CanvasRenderingContext2D) => void) | undefined;
 }
 
 /** Counts of what was drawn, for tests and the status line. */
@@ -204,6 +206,7 @@ export function drawPlanView(ctx: CanvasRenderingContext2D, d: PlanDrawing): Pla
   const { data, view, widthPx: w, heightPx: h } = d;
   ctx.fillStyle = PLOT_COLOURS.background;
   ctx.fillRect(0, 0, w, h);
+  d.background?.(ctx);
   drawGrid(ctx, d);
   const scale = 1 / view.metresPerPx;
   const sx = (e: number) => w / 2 + (e - view.centreE) * scale;

@@ -1,0 +1,4 @@
+/** Query keys of the site settings. */
+export const siteSettingsKeys = {
+  all: ['site-settings'] as const,
+};
