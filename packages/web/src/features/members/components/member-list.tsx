@@ -3,6 +3,7 @@ import { buttonStyles } from '../../../components/ui/button-styles';
 import { ConfirmAction } from '../../../components/ui/confirm-action';
 import { fieldStyles } from '../../../components/ui/field-styles';
 import { FormFailure } from '../../../components/ui/form-failure';
+import { ListTable } from '../../../components/ui/list-table';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/query-states';
 import { formatDateTime } from '../../../lib/format-date-time';
 import { useChangeRole } from '../api/change-role';
@@ -76,47 +77,23 @@ export function MemberList({ organisationId, currentUserId }: { organisationId: 
     );
   if (members.data.length === 0) return <EmptyState title="No members" />;
   return (
-    <div className="overflow-x-auto rounded-lg border border-abyss/10 bg-white">
-      <table className="w-full text-left text-sm">
-        <caption className="sr-only">Members</caption>
-        <thead className="bg-foam">
-          <tr>
-            <th scope="col" className="px-3 py-2 font-semibold">
-              Name
-            </th>
-            <th scope="col" className="px-3 py-2 font-semibold">
-              E-mail
-            </th>
-            <th scope="col" className="px-3 py-2 font-semibold">
-              Role
-            </th>
-            <th scope="col" className="px-3 py-2 font-semibold">
-              Joined
-            </th>
-            <th scope="col" className="px-3 py-2 font-semibold">
-              <span className="sr-only">Actions</span>
-            </th>
-          </tr>
-        </thead>
-        <tbody>
-          {members.data.map((member) => (
-            <tr key={member.userId} className="border-t border-abyss/10 align-top">
-              <th scope="row" className="px-3 py-2 font-medium">
-                {member.displayName}
-                {member.userId === currentUserId ? <span className="font-normal text-abyss-soft"> (you)</span> : null}
-              </th>
-              <td className="px-3 py-2">{member.email}</td>
-              <td className="px-3 py-2">
-                <RoleCell key={member.role} organisationId={organisationId} member={member} />
-              </td>
-              <td className="px-3 py-2">{formatDateTime(member.joinedAt)}</td>
-              <td className="px-3 py-2">
-                <RemoveCell organisationId={organisationId} member={member} />
-              </td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
-    </div>
+    <ListTable caption="Members" columns={['Name', 'E-mail', 'Role', 'Joined']}>
+      {members.data.map((member) => (
+        <tr key={member.userId} className="border-t border-abyss/10 align-top">
+          <th scope="row" className="px-3 py-2 font-medium">
+            {member.displayName}
+            {member.userId === currentUserId ? <span className="font-normal text-abyss-soft"> (you)</span> : null}
+          </th>
+          <td className="px-3 py-2">{member.email}</td>
+          <td className="px-3 py-2">
+            <RoleCell key={member.role} organisationId={organisationId} member={member} />
+          </td>
+          <td className="px-3 py-2">{formatDateTime(member.joinedAt)}</td>
+          <td className="px-3 py-2">
+            <RemoveCell organisationId={organisationId} member={member} />
+          </td>
+        </tr>
+      ))}
+    </ListTable>
   );
 }

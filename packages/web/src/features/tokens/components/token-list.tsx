@@ -1,4 +1,5 @@
 import { ConfirmAction } from '../../../components/ui/confirm-action';
+import { ListTable } from '../../../components/ui/list-table';
 import { EmptyState, ErrorState, LoadingState } from '../../../components/ui/query-states';
 import { formatDateTime } from '../../../lib/format-date-time';
 import { type ApiToken, useTokens } from '../api/list-tokens';
@@ -40,55 +41,25 @@ export function TokenList({ organisationId, now = Date.now() }: { organisationId
       </EmptyState>
     );
   return (
-    <div className="overflow-x-auto rounded-lg border border-abyss/10 bg-white">
-      <table className="w-full text-left text-sm">
-        <caption className="sr-only">API tokens</caption>
-        <thead className="bg-foam">
-          <tr>
-            <th scope="col" className="px-3 py-2 font-semibold">
-              Name
+    <ListTable caption="API tokens" columns={['Name', 'Starts with', 'Scope', 'Last used', 'Expires', 'State']}>
+      {tokens.data.map((token) => {
+        const state = tokenState(token, now);
+        return (
+          <tr key={token.id} className="border-t border-abyss/10 align-top">
+            <th scope="row" className="px-3 py-2 font-medium">
+              {token.name}
             </th>
-            <th scope="col" className="px-3 py-2 font-semibold">
-              Starts with
-            </th>
-            <th scope="col" className="px-3 py-2 font-semibold">
-              Scope
-            </th>
-            <th scope="col" className="px-3 py-2 font-semibold">
-              Last used
-            </th>
-            <th scope="col" className="px-3 py-2 font-semibold">
-              Expires
-            </th>
-            <th scope="col" className="px-3 py-2 font-semibold">
-              State
-            </th>
-            <th scope="col" className="px-3 py-2 font-semibold">
-              <span className="sr-only">Actions</span>
-            </th>
+            <td className="px-3 py-2 font-mono">{token.displayPrefix}…</td>
+            <td className="px-3 py-2">{token.scope === 'read' ? 'read' : 'read and write'}</td>
+            <td className="px-3 py-2">{token.lastUsedAt ? formatDateTime(token.lastUsedAt) : 'never'}</td>
+            <td className="px-3 py-2">{token.expiresAt ? formatDateTime(token.expiresAt) : 'never'}</td>
+            <td className="px-3 py-2">{state}</td>
+            <td className="px-3 py-2">
+              {state === 'active' ? <RevokeCell organisationId={organisationId} token={token} /> : null}
+            </td>
           </tr>
-        </thead>
-        <tbody>
-          {tokens.data.map((token) => {
-            const state = tokenState(token, now);
-            return (
-              <tr key={token.id} className="border-t border-abyss/10 align-top">
-                <th scope="row" className="px-3 py-2 font-medium">
-                  {token.name}
-                </th>
-                <td className="px-3 py-2 font-mono">{token.displayPrefix}…</td>
-                <td className="px-3 py-2">{token.scope === 'read' ? 'read' : 'read and write'}</td>
-                <td className="px-3 py-2">{token.lastUsedAt ? formatDateTime(token.lastUsedAt) : 'never'}</td>
-                <td className="px-3 py-2">{token.expiresAt ? formatDateTime(token.expiresAt) : 'never'}</td>
-                <td className="px-3 py-2">{state}</td>
-                <td className="px-3 py-2">
-                  {state === 'active' ? <RevokeCell organisationId={organisationId} token={token} /> : null}
-                </td>
-              </tr>
-            );
-          })}
-        </tbody>
-      </table>
-    </div>
+        );
+      })}
+    </ListTable>
   );
 }
