@@ -1,7 +1,6 @@
 #!/usr/bin/env node
-// The workspace runs TypeScript from source: tsx's loader compiles it on the fly.
-import { register } from 'tsx/esm/api';
+// Runs the command line from its bundle (bin/bundle.mjs), rebuilt first when a source changed.
+import { ensureBundles } from './bundle.mjs';
 
-register();
-const { main } = await import('../src/main.ts');
+const { main } = await import(await ensureBundles());
 process.exitCode = await main(process.argv.slice(2));

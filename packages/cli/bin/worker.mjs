@@ -1,15 +1,8 @@
-// Worker-thread entry for `--jobs`: registers the TypeScript loader in this thread, then runs the
-// named export of the task module the pool asks for.
+// Worker-thread entry when the command line runs from TypeScript source (tests): registers tsx's
+// loader in this thread, then hands each task to src/worker-entry.ts. The bundled command line uses
+// dist/worker.mjs instead.
 import { register } from 'tsx/esm/api';
 
 register();
-const modules = new Map();
-
-export default async function runTask({ module, name, payload }) {
-  let loaded = modules.get(module);
-  if (loaded === undefined) {
-    loaded = await import(module);
-    modules.set(module, loaded);
-  }
-  return loaded[name](payload);
-}
+const { default: runTask } = await import('../src/worker-entry.ts');
+export default runTask;

@@ -16,6 +16,7 @@ import {
   splitDives,
   type Track,
 } from '@leadline/core';
+import type { TaskFile } from '../support/file-task.js';
 
 /** Report formats `leadline audit --report` writes. */
 export const REPORT_FORMATS = ['json', 'md', 'html'] as const;
@@ -36,10 +37,7 @@ export interface AuditTaskPayload {
 }
 
 /** One file a task wants written: `<input name><suffix><extension>`. */
-export interface AuditTaskFile {
-  suffix: string;
-  extension: string;
-  text: string;
+export interface AuditTaskFile extends TaskFile {
   /** The dive report it belongs to (index into `dives`), so the batch report can link to it. */
   dive: number;
 }

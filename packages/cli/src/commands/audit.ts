@@ -24,8 +24,6 @@ import { UsageProblem } from '../support/usage-problem.js';
 import { type AuditTaskPayload, type AuditTaskResult, REPORT_FORMATS, type ReportFormat } from './audit-task.js';
 import type { RegisterCommand } from './index.js';
 
-const TASK_MODULE = new URL('./audit-task.ts', import.meta.url);
-
 /** The options of `leadline audit`. */
 export interface AuditCliOptions extends CommonOptions {
   profile?: string;
@@ -186,25 +184,21 @@ export async function runAudit(
     io,
     cwd,
     writesOutputs: true,
-    work: async (input, { bytes, pool, out, index }) => {
-      const payload: AuditTaskPayload = {
+    work: async (input, { run, index }) => {
+      const task: Omit<AuditTaskPayload, 'bytes'> = {
         displayName: input.displayName,
-        bytes,
         readOptions,
         profile,
         setup,
         formats,
         ...(split === undefined ? {} : { split }),
       };
-      const result = await pool.run<AuditTaskPayload, AuditTaskResult>(TASK_MODULE, 'auditFileTask', payload);
-      const outputs: WrittenOutput[] = [];
+      const { result, written: outputs } = await run('auditFile', task);
       const links: Array<string | undefined> = result.dives.map(() => undefined);
-      if (out !== undefined && result.ok)
-        for (const file of result.files) {
-          const written = await out.write(out.pathFor(input, file.extension, file.suffix), file.text);
-          outputs.push(written);
-          links[file.dive] = written.path.split('\\').join('/');
-        }
+      result.files.forEach((file, k) => {
+        const written = outputs[k];
+        if (written !== undefined) links[file.dive] = written.path.split('\\').join('/');
+      });
       hrefs[index] = links;
       plots[index] = result.plots;
       return toFileReport(input.displayName, result, outputs);

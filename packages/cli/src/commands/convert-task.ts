@@ -16,6 +16,7 @@ import {
   writeGpx,
   writeKml,
 } from '@leadline/core';
+import type { TaskFile } from '../support/file-task.js';
 
 /** Output formats `leadline convert --to` writes. */
 export const CONVERT_FORMATS = ['gpx', 'geojson', 'csv', 'kml'] as const;
@@ -65,14 +66,14 @@ export interface ConvertTaskResult {
   cleaned: Array<{ track: string; profile: string; droppedCount: number }>;
   resolvedTracks: string[];
   notes: string[];
-  extension: string;
-  text: string;
+  /** The converted file (one, or none when the input could not be read). */
+  files: TaskFile[];
 }
 
 /**
  * Reads one log, optionally re-solves its vehicle tracks with a setup and cleans them (drops the
  * fixes an audit flags), then writes the chosen format, in the chosen CRS for CSV. Runs on a worker
- * thread under `--jobs`; never touches the file system.
+ * thread under `--jobs`; never touches the file system (`runFileTask` reads and writes around it).
  */
 export function convertFileTask(payload: ConvertTaskPayload): ConvertTaskResult {
   const read = readLog({ fileName: payload.displayName, content: payload.bytes }, payload.readOptions);
@@ -86,8 +87,7 @@ export function convertFileTask(payload: ConvertTaskPayload): ConvertTaskResult 
     cleaned: [],
     resolvedTracks: [],
     notes: read.notes,
-    extension: `.${payload.to}`,
-    text: '',
+    files: [],
   };
   if (read.tracks.length === 0 && read.waypoints.length === 0) {
     const why =
@@ -166,6 +166,6 @@ export function convertFileTask(payload: ConvertTaskPayload): ConvertTaskResult 
     crs,
     cleaned,
     resolvedTracks,
-    text,
+    files: [{ suffix: '', extension: `.${payload.to}`, text }],
   };
 }

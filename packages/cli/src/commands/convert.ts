@@ -9,18 +9,10 @@ import { addCommonOptions, type CommonOptions, loadConfig, type WrittenOutput } 
 import { loadResolveSetup } from '../support/load-resolve-setup.js';
 import { NOT_PREPARED, prepareRun, printReports, runFiles } from '../support/run-files.js';
 import { UsageProblem } from '../support/usage-problem.js';
-import {
-  CONVERT_FORMATS,
-  type ConvertCrsReport,
-  type ConvertFormat,
-  type ConvertTaskPayload,
-  type ConvertTaskResult,
-} from './convert-task.js';
+import { CONVERT_FORMATS, type ConvertCrsReport, type ConvertFormat, type ConvertTaskPayload } from './convert-task.js';
 import type { RegisterCommand } from './index.js';
 
 export { CONVERT_FORMATS, type ConvertFormat } from './convert-task.js';
-
-const TASK_MODULE = new URL('./convert-task.ts', import.meta.url);
 
 /** The options of `leadline convert`. */
 export interface ConvertOptions extends CommonOptions {
@@ -170,10 +162,9 @@ export async function runConvert(
         return '--json needs --out <dir> (without it the converted file itself goes to standard output)';
       return undefined;
     },
-    work: async (input, { bytes, pool, out }) => {
-      const payload: ConvertTaskPayload = {
+    work: async (input, { run }) => {
+      const task: Omit<ConvertTaskPayload, 'bytes'> = {
         displayName: input.displayName,
-        bytes,
         readOptions,
         to: options.to,
         nowMs,
@@ -183,12 +174,8 @@ export async function runConvert(
         ...(cleanProfile === undefined ? {} : { cleanProfile }),
         ...(setup === undefined ? {} : { setup }),
       };
-      const result = await pool.run<ConvertTaskPayload, ConvertTaskResult>(TASK_MODULE, 'convertFileTask', payload);
-      const outputs: WrittenOutput[] = [];
-      if (result.ok) {
-        if (out !== undefined) outputs.push(await out.write(out.pathFor(input, result.extension), result.text));
-        else stdoutText = result.text;
-      }
+      const { result, written: outputs } = await run('convertFile', task);
+      if (result.ok && options.out === undefined) stdoutText = result.files[0]?.text;
       return {
         file: input.displayName,
         ok: result.ok,

@@ -4,11 +4,9 @@ import { buildReadOptions } from '../support/build-read-options.js';
 import { addCommonOptions, type CommonOptions, loadConfig } from '../support/index.js';
 import { NOT_PREPARED, prepareRun, printReports, runFiles } from '../support/run-files.js';
 import type { RegisterCommand } from './index.js';
-import type { InspectFileReport, InspectTaskPayload } from './inspect-task.js';
+import type { InspectFileReport } from './inspect-task.js';
 
 export type { InspectFileReport, InspectSummary, InspectTrackReport } from './inspect-task.js';
-
-const TASK_MODULE = new URL('./inspect-task.ts', import.meta.url);
 
 /** The options of `leadline inspect`. */
 export type InspectOptions = CommonOptions;
@@ -73,10 +71,7 @@ export async function runInspect(
     io,
     cwd,
     writesOutputs: false,
-    work: (input, { bytes, pool }) => {
-      const payload: InspectTaskPayload = { displayName: input.displayName, bytes, readOptions };
-      return pool.run<InspectTaskPayload, InspectFileReport>(TASK_MODULE, 'inspectFileTask', payload);
-    },
+    work: async (input, { run }) => (await run('inspectFile', { displayName: input.displayName, readOptions })).result,
     failed: (input, message, error) => {
       // a column map naming no column is the caller's mistake, said once
       if (error instanceof Error && /names no column/.test(error.message)) usageError ??= error.message;

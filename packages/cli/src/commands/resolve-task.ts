@@ -15,6 +15,7 @@ import {
   writeGpx,
   writeKml,
 } from '@leadline/core';
+import type { TaskFile } from '../support/file-task.js';
 
 /** Output formats `leadline resolve --to` writes. */
 export const RESOLVE_FORMATS = ['geojson', 'gpx', 'csv', 'kml'] as const;
@@ -37,11 +38,7 @@ export interface ResolveTaskPayload {
 }
 
 /** One file a task wants written: `<input name><suffix><extension>`. */
-export interface ResolveTaskFile {
-  suffix: string;
-  extension: string;
-  text: string;
-}
+export type ResolveTaskFile = TaskFile;
 
 /** What a task returns for one input. */
 export interface ResolveTaskResult {

@@ -8,16 +8,9 @@ import { loadResolveSetup } from '../support/load-resolve-setup.js';
 import { NOT_PREPARED, prepareRun, printReports, runFiles } from '../support/run-files.js';
 import { UsageProblem } from '../support/usage-problem.js';
 import type { RegisterCommand } from './index.js';
-import {
-  RESOLVE_FORMATS,
-  type ResolveFormat,
-  type ResolveTaskPayload,
-  type ResolveTaskResult,
-} from './resolve-task.js';
+import { RESOLVE_FORMATS, type ResolveFormat, type ResolveTaskPayload } from './resolve-task.js';
 
 export { RESOLVE_FORMATS, type ResolveFormat } from './resolve-task.js';
-
-const TASK_MODULE = new URL('./resolve-task.ts', import.meta.url);
 
 /** The options of `leadline resolve`. */
 export interface ResolveOptions extends CommonOptions {
@@ -122,10 +115,9 @@ export async function runResolve(
     io,
     cwd,
     writesOutputs: true,
-    work: async (input, { bytes, pool, out }) => {
-      const payload: ResolveTaskPayload = {
+    work: async (input, { run, out }) => {
+      const task: Omit<ResolveTaskPayload, 'bytes'> = {
         displayName: input.displayName,
-        bytes,
         setup,
         auditProfile,
         readOptions,
@@ -133,11 +125,7 @@ export async function runResolve(
         ...(options.crs === undefined ? {} : { crs: options.crs }),
         withFiles: out !== undefined,
       };
-      const result = await pool.run<ResolveTaskPayload, ResolveTaskResult>(TASK_MODULE, 'resolveFileTask', payload);
-      const outputs: WrittenOutput[] = [];
-      if (out !== undefined && result.ok)
-        for (const file of result.files)
-          outputs.push(await out.write(out.pathFor(input, file.extension, file.suffix), file.text));
+      const { result, written: outputs } = await run('resolveFile', task);
       return {
         file: input.displayName,
         ok: result.ok,

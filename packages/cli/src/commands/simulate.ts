@@ -6,7 +6,6 @@ import {
   type LogDialect,
   type PlannedDive,
   planSeason,
-  simulatePlannedDive,
 } from '@leadline/core';
 import { InvalidArgumentError, Option } from 'commander';
 import { EXIT_IO, EXIT_OK, EXIT_USAGE } from '../exit-codes.js';
@@ -52,25 +51,6 @@ export interface SimulateReport {
   surfaceFixes: number;
   files: string[];
   manifest: string;
-}
-
-/** One dive simulated on a worker: its files' names and texts, and counts. */
-interface DiveTaskResult {
-  files: Array<{ name: string; text: string }>;
-  vehicleFixes: number;
-  surfaceFixes: number;
-}
-
-const TASK_MODULE = new URL(import.meta.url);
-
-/** Worker task: simulates one planned dive and returns its log files and truth file. */
-export function simulateDiveTask(planned: PlannedDive): DiveTaskResult {
-  const result = simulatePlannedDive(planned);
-  return {
-    files: [...result.files.map((f) => ({ name: f.name, text: f.text })), result.truthFile],
-    vehicleFixes: result.dive.vehicleLog.length,
-    surfaceFixes: result.dive.surfaceLog.length,
-  };
 }
 
 function parseSeed(text: string): number {
@@ -164,7 +144,7 @@ export async function runSimulate(args: SimulateArgs, io: CliIo): Promise<number
       plan,
       args.jobs,
       async (planned) => {
-        const result = await pool.run<PlannedDive, DiveTaskResult>(TASK_MODULE, 'simulateDiveTask', planned);
+        const result = await pool.run('simulateDive', planned);
         for (const file of result.files) {
           const output = await out.write(join(out.root, ...file.name.split('/')), file.text);
           written.push(output.path);

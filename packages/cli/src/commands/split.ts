@@ -6,15 +6,7 @@ import { buildReadOptions } from '../support/build-read-options.js';
 import { addCommonOptions, type CommonOptions, loadConfig, type WrittenOutput } from '../support/index.js';
 import { NOT_PREPARED, prepareRun, printReports, runFiles } from '../support/run-files.js';
 import type { RegisterCommand } from './index.js';
-import {
-  SPLIT_FORMATS,
-  type SplitFormat,
-  type SplitSpanReport,
-  type SplitTaskPayload,
-  type SplitTaskResult,
-} from './split-task.js';
-
-const TASK_MODULE = new URL('./split-task.ts', import.meta.url);
+import { SPLIT_FORMATS, type SplitFormat, type SplitSpanReport, type SplitTaskPayload } from './split-task.js';
 
 /** The options of `leadline split`. */
 export interface SplitCliOptions extends CommonOptions {
@@ -113,20 +105,15 @@ export async function runSplit(
     io,
     cwd,
     writesOutputs: true,
-    work: async (input, { bytes, pool, out }) => {
-      const payload: SplitTaskPayload = {
+    work: async (input, { run, out }) => {
+      const task: Omit<SplitTaskPayload, 'bytes'> = {
         displayName: input.displayName,
-        bytes,
         readOptions,
         split,
         to: options.to,
         withFiles: out !== undefined,
       };
-      const result = await pool.run<SplitTaskPayload, SplitTaskResult>(TASK_MODULE, 'splitFileTask', payload);
-      const outputs: WrittenOutput[] = [];
-      if (out !== undefined && result.ok)
-        for (const file of result.files)
-          outputs.push(await out.write(out.pathFor(input, file.extension, file.suffix), file.text));
+      const { result, written: outputs } = await run('splitFile', task);
       const { files: _files, ...rest } = result;
       return { file: input.displayName, ...rest, outputs };
     },

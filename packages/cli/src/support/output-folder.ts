@@ -1,5 +1,5 @@
 import { createHash } from 'node:crypto';
-import { existsSync, realpathSync } from 'node:fs';
+import { existsSync, mkdirSync, realpathSync, writeFileSync } from 'node:fs';
 import { mkdir, writeFile } from 'node:fs/promises';
 import { dirname, join, parse, relative, resolve } from 'node:path';
 import { LEADLINE_VERSION } from '@leadline/core';
@@ -36,49 +36,97 @@ export function sha256Hex(bytes: Uint8Array | string): string {
   return createHash('sha256').update(bytes).digest('hex');
 }
 
+/** What the manifest records of one input. */
+export interface InputRecord {
+  bytes: number;
+  sha256: string;
+}
+
+/**
+ * The rules of one `--out` folder, plain data so a worker thread can write outputs itself: where
+ * outputs go, whether existing outputs may be overwritten, and the inputs (real paths) never to touch.
+ */
+export interface OutputRules {
+  root: string;
+  force: boolean;
+  inputPaths: readonly string[];
+}
+
+/** The output path for an input with a new extension (e.g. `.geojson`), mirroring its relative folder. */
+export function outputPathFor(root: string, relativePath: string, extension: string, suffix = ''): string {
+  const parsed = parse(relativePath);
+  return join(root, parsed.dir, `${parsed.name}${suffix}${extension}`);
+}
+
+/**
+ * Writes one output under `rules` (synchronously: on a worker thread nothing else waits); throws
+ * `OutputRefusedError` instead of overwriting an input or, without force, an existing output.
+ */
+export function writeOutputFile(rules: OutputRules, path: string, content: string | Uint8Array): WrittenOutput {
+  const absolute = checkOutputPath(rules, path);
+  mkdirSync(dirname(absolute), { recursive: true });
+  writeFileSync(absolute, content);
+  return describeOutput(rules.root, absolute, content);
+}
+
+function checkOutputPath(rules: OutputRules, path: string): string {
+  const absolute = resolve(path);
+  if (rules.inputPaths.includes(realPathOrSelf(absolute))) {
+    throw new OutputRefusedError(`${absolute}: refusing to overwrite an input file; choose another --out folder`);
+  }
+  if (!rules.force && existsSync(absolute)) {
+    throw new OutputRefusedError(`${absolute}: already exists; add --force to overwrite outputs`);
+  }
+  return absolute;
+}
+
+function describeOutput(root: string, absolute: string, content: string | Uint8Array): WrittenOutput {
+  const bytes = typeof content === 'string' ? Buffer.byteLength(content) : content.byteLength;
+  return { path: relative(root, absolute), bytes, sha256: sha256Hex(content) };
+}
+
 /**
  * The `--out` folder of one run: mirrors the inputs' folder structure, never overwrites an input,
  * refuses to overwrite an existing output unless `force`, and writes the run manifest at the end.
  */
 export class OutputFolder {
   readonly root: string;
-  readonly #force: boolean;
-  readonly #inputPaths: Set<string>;
+  /** The folder's rules as plain data, for tasks that write their outputs on a worker thread. */
+  readonly rules: OutputRules;
   readonly #inputs: RunManifest['inputs'] = [];
   readonly #outputs: WrittenOutput[] = [];
   readonly #startedAt: Date;
 
   constructor(root: string, options: { force: boolean; inputs: readonly InputFile[]; now?: Date }) {
     this.root = resolve(root);
-    this.#force = options.force;
-    this.#inputPaths = new Set(options.inputs.filter((i) => i.path !== '-').map((i) => realPathOrSelf(i.path)));
+    const inputPaths = options.inputs.filter((i) => i.path !== '-').map((i) => realPathOrSelf(i.path));
+    this.rules = { root: this.root, force: options.force, inputPaths };
     this.#startedAt = options.now ?? new Date();
   }
 
   /** The output path for an input with a new extension (e.g. `.geojson`), mirroring its relative folder. */
   pathFor(input: InputFile, extension: string, suffix = ''): string {
-    const parsed = parse(input.relativePath);
-    return join(this.root, parsed.dir, `${parsed.name}${suffix}${extension}`);
+    return outputPathFor(this.root, input.relativePath, extension, suffix);
   }
 
-  /** Records an input's size and SHA-256 for the manifest. */
-  recordInput(input: InputFile, bytes: Uint8Array): void {
-    this.#inputs.push({ path: input.displayName, bytes: bytes.byteLength, sha256: sha256Hex(bytes) });
+  /** Records an input's size and SHA-256 for the manifest (given, or computed from its bytes). */
+  recordInput(input: InputFile, record: Uint8Array | InputRecord): void {
+    const { bytes, sha256 } =
+      record instanceof Uint8Array ? { bytes: record.byteLength, sha256: sha256Hex(record) } : record;
+    this.#inputs.push({ path: input.displayName, bytes, sha256 });
+  }
+
+  /** Records an output a worker thread wrote under `rules`. */
+  recordOutput(written: WrittenOutput): void {
+    this.#outputs.push(written);
   }
 
   /** Writes one output file; throws `OutputRefusedError` instead of overwriting an input or, without force, an output. */
   async write(path: string, content: string | Uint8Array): Promise<WrittenOutput> {
-    const absolute = resolve(path);
-    if (this.#inputPaths.has(realPathOrSelf(absolute))) {
-      throw new OutputRefusedError(`${absolute}: refusing to overwrite an input file; choose another --out folder`);
-    }
-    if (!this.#force && existsSync(absolute)) {
-      throw new OutputRefusedError(`${absolute}: already exists; add --force to overwrite outputs`);
-    }
+    const absolute = checkOutputPath(this.rules, path);
     await mkdir(dirname(absolute), { recursive: true });
     await writeFile(absolute, content);
-    const bytes = typeof content === 'string' ? Buffer.byteLength(content) : content.byteLength;
-    const written = { path: relative(this.root, absolute), bytes, sha256: sha256Hex(content) };
+    const written = describeOutput(this.root, absolute, content);
     this.#outputs.push(written);
     return written;
   }

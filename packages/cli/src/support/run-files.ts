@@ -1,7 +1,10 @@
 import { resolve as resolvePath } from 'node:path';
 import { EXIT_IO, EXIT_OK, EXIT_USAGE } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
+import type { FileTaskName, TaskPayload, TaskResult } from '../tasks.js';
 import type { CommonOptions } from './common-options.js';
+import type { TaskSource } from './file-task.js';
+import type { WrittenOutput } from './output-folder.js';
 import { OutputFolder } from './output-folder.js';
 import { printJson } from './print-json.js';
 import { startProgress } from './progress.js';
@@ -13,10 +16,15 @@ import { isUsageError } from './usage-problem.js';
 
 /** What a verb's per-file work gets besides the input. */
 export interface FileWork {
-  /** The input's bytes, read whole (standard input for `-`); already recorded in the manifest. */
-  bytes: Uint8Array;
-  /** The worker threads of this run. */
-  pool: TaskPool;
+  /**
+   * Runs a file task on this input on the worker threads: the worker reads the input and, with
+   * `--out`, writes the files the task asks for; both go into the manifest. Gives back the task's
+   * result (texts of written files emptied) and what was written, in the order of `result.files`.
+   */
+  run<N extends FileTaskName>(
+    name: N,
+    task: TaskPayload<N>['task'],
+  ): Promise<{ result: TaskResult<N>['result']; written: WrittenOutput[] }>;
   /** The `--out` folder, when the verb writes one and `--out` was given. */
   out: OutputFolder | undefined;
   /** The input's position in `inputs`. */
@@ -79,11 +87,8 @@ export async function runFiles<R>(spec: RunFilesSpec<R>): Promise<FileRun<R> | n
     results = await runPool(
       inputs,
       options.jobs,
-      async (input, index) => {
-        const bytes = await readInputBytes(input);
-        out?.recordInput(input, bytes);
-        return spec.work(input, { bytes, pool, out, index });
-      },
+      (input, index) =>
+        spec.work(input, { run: (name, task) => runFileTask(pool, out, input, name, task), out, index }),
       (done) => progress.update(done),
     );
   } finally {
@@ -97,6 +102,23 @@ export async function runFiles<R>(spec: RunFilesSpec<R>): Promise<FileRun<R> | n
     return spec.failed(inputs[i] as InputFile, message, error);
   });
   return { inputs, problems, out, reports, exitCode: problems.length > 0 ? EXIT_IO : EXIT_OK };
+}
+
+/** Runs one file task on `input` (standard input is read here, files on the worker), recording input and outputs. */
+async function runFileTask<N extends FileTaskName>(
+  pool: TaskPool,
+  out: OutputFolder | undefined,
+  input: InputFile,
+  name: N,
+  task: TaskPayload<N>['task'],
+): Promise<{ result: TaskResult<N>['result']; written: WrittenOutput[] }> {
+  const source: TaskSource = input.path === '-' ? { bytes: await readInputBytes(input) } : { path: input.path };
+  const target = out === undefined ? undefined : { rules: out.rules, relativePath: input.relativePath };
+  const payload = { source, task, ...(target === undefined ? {} : { target }) } as TaskPayload<N>;
+  const outcome = (await pool.run(name, payload)) as TaskResult<FileTaskName>;
+  out?.recordInput(input, outcome.input);
+  for (const written of outcome.written) out?.recordOutput(written);
+  return { result: outcome.result as TaskResult<N>['result'], written: outcome.written };
 }
 
 /**

@@ -1,4 +1,4 @@
-import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { LEADLINE_VERSION } from '@leadline/core';
@@ -170,7 +170,7 @@ function sink() {
 describe('runFiles', () => {
   const options = { jobs: 1, json: false, quiet: true, progress: false, force: false };
 
-  it('hands every input to the work with its bytes, keeps a failure to its own input, and says unmatched arguments', async () => {
+  it('hands every input to the work, keeps a failure to its own input, and says unmatched arguments', async () => {
     const { io, stderr } = sink();
     const run = await runFiles({
       verb: 'try',
@@ -179,9 +179,9 @@ describe('runFiles', () => {
       io,
       cwd: dir,
       writesOutputs: true,
-      work: async (input, { bytes }) => {
+      work: async (input) => {
         if (input.relativePath.endsWith('.gpx')) throw new Error('bad file');
-        return `${input.relativePath}:${bytes.byteLength}`;
+        return `${input.relativePath}:${statSync(input.path).size}`;
       },
       failed: (input, message) => `${input.relativePath} failed: ${message}`,
     });

@@ -1,34 +1,59 @@
-import { threadId } from 'node:worker_threads';
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { readLog } from '@leadline/core';
 import { describe, expect, it } from 'vitest';
+import type { TaskPayload } from '../tasks.js';
+import { sha256Hex } from './output-folder.js';
 import { createTaskPool } from './task-pool.js';
 
-const TASK = new URL('../testing/sample-task.ts', import.meta.url);
+const FIXTURE = new URL('../../../../fixtures/read/in/csv-plain-decimal.csv', import.meta.url).pathname;
+
+const inspect = (path: string): TaskPayload<'inspectFile'> => ({
+  source: { path },
+  task: { displayName: 'csv-plain-decimal.csv', readOptions: {} },
+});
 
 describe('createTaskPool', () => {
-  it('runs tasks on worker threads when given more than one job', async () => {
-    const pool = createTaskPool(2);
+  it('gives the same report on worker threads as in this thread, and records the input read there', async () => {
+    const threads = createTaskPool(2);
     try {
-      const results = await Promise.all(
-        [1, 2, 3, 4].map((value) =>
-          pool.run<{ value: number }, { doubled: number; threadId: number }>(TASK, 'describeThread', { value }),
-        ),
-      );
-      expect(results.map((r) => r.doubled)).toEqual([2, 4, 6, 8]);
-      expect(results.every((r) => r.threadId !== threadId)).toBe(true);
+      const [onThreads, again] = await Promise.all([
+        threads.run('inspectFile', inspect(FIXTURE)),
+        threads.run('inspectFile', inspect(FIXTURE)),
+      ]);
+      const here = await createTaskPool(1).run('inspectFile', inspect(FIXTURE));
+      expect(onThreads).toEqual(here);
+      expect(again).toEqual(here);
+      const bytes = readFileSync(FIXTURE);
+      expect(here.input).toEqual({ bytes: bytes.byteLength, sha256: sha256Hex(bytes) });
+      const direct = readLog({ fileName: 'csv-plain-decimal.csv', content: bytes });
+      expect(here.result.fixCount).toBe(direct.tracks.reduce((n, t) => n + t.length, 0));
     } finally {
-      await pool.destroy();
+      await threads.destroy();
     }
   });
 
-  it('runs in this thread with one job', async () => {
-    const pool = createTaskPool(1);
-    const result = await pool.run<{ value: number }, { doubled: number; threadId: number }>(TASK, 'describeThread', {
-      value: 5,
-    });
-    expect(result).toEqual({ doubled: 10, threadId });
+  it('writes a task’s files on the worker thread and sends back only what it wrote', async () => {
+    const root = mkdtempSync(join(tmpdir(), 'leadline-pool-'));
+    const threads = createTaskPool(2);
+    try {
+      const outcome = await threads.run('convertFile', {
+        source: { path: FIXTURE },
+        target: { rules: { root, force: false, inputPaths: [FIXTURE] }, relativePath: 'day1/dive.csv' },
+        task: { displayName: 'dive.csv', readOptions: {}, to: 'geojson', nowMs: 0 },
+      });
+      expect(outcome.written.map((w) => w.path)).toEqual([join('day1', 'dive.geojson')]);
+      const text = readFileSync(join(root, 'day1', 'dive.geojson'), 'utf8');
+      expect(outcome.written[0]?.sha256).toBe(sha256Hex(text));
+      expect(outcome.result.files[0]?.text).toBe('');
+    } finally {
+      await threads.destroy();
+      rmSync(root, { recursive: true, force: true });
+    }
   });
 
   it('says which task is missing', async () => {
-    await expect(createTaskPool(1).run(TASK, 'noSuchTask', {})).rejects.toThrow(/has no task noSuchTask/);
+    await expect(createTaskPool(1).run('noSuchTask' as 'inspectFile', inspect(FIXTURE))).rejects.toThrow();
   });
 });

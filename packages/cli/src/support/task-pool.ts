@@ -1,14 +1,19 @@
 import { Piscina } from 'piscina';
+import type { TaskName, TaskPayload, TaskResult } from '../tasks.js';
 
-const WORKER_ENTRY = new URL('../../bin/worker.mjs', import.meta.url).href;
+// Bundled (dist/leadline.mjs) the workers run the prebuilt dist/worker.mjs; from TypeScript source
+// (tests, tsx) they run bin/worker.mjs, which registers tsx's loader first.
+const WORKER_ENTRY = import.meta.url.endsWith('.ts')
+  ? new URL('../../bin/worker.mjs', import.meta.url).href
+  : new URL('./worker.mjs', import.meta.url).href;
 
 /**
- * Runs named exports of a task module on worker threads, so `--jobs` files are processed on as many
+ * Runs the named tasks of `tasks.ts` on worker threads, so `--jobs` files are processed on as many
  * cores. With one job the task runs in this thread (no worker start-up cost, easy to debug).
  * A task takes and returns structured-cloneable data: file paths and settings in, results out.
  */
 export interface TaskPool {
-  run<P, R>(taskModule: URL, exportName: string, payload: P): Promise<R>;
+  run<N extends TaskName>(name: N, payload: TaskPayload<N>): Promise<TaskResult<N>>;
   destroy(): Promise<void>;
 }
 
@@ -16,10 +21,9 @@ export interface TaskPool {
 export function createTaskPool(jobs: number): TaskPool {
   if (jobs <= 1) {
     return {
-      async run<P, R>(taskModule: URL, exportName: string, payload: P): Promise<R> {
-        const loaded = (await import(taskModule.href)) as Record<string, (payload: P) => R | Promise<R>>;
-        const task = loaded[exportName];
-        if (typeof task !== 'function') throw new Error(`${taskModule.href} has no task ${exportName}`);
+      async run<N extends TaskName>(name: N, payload: TaskPayload<N>): Promise<TaskResult<N>> {
+        const { TASKS } = await import('../tasks.js');
+        const task = TASKS[name] as (payload: TaskPayload<N>) => TaskResult<N> | Promise<TaskResult<N>>;
         return task(payload);
       },
       async destroy() {},
@@ -27,8 +31,8 @@ export function createTaskPool(jobs: number): TaskPool {
   }
   const pool = new Piscina({ filename: WORKER_ENTRY, minThreads: 1, maxThreads: jobs, idleTimeout: 1000 });
   return {
-    run<P, R>(taskModule: URL, exportName: string, payload: P): Promise<R> {
-      return pool.run({ module: taskModule.href, name: exportName, payload }) as Promise<R>;
+    run<N extends TaskName>(name: N, payload: TaskPayload<N>): Promise<TaskResult<N>> {
+      return pool.run({ name, payload }) as Promise<TaskResult<N>>;
     },
     destroy: () => pool.destroy(),
   };
