@@ -1,7 +1,7 @@
 import type { FixColumnName } from '../model/track.js';
 import { normaliseAzimuthDeg, toMetres, toMetresPerSecond } from '../model/units.js';
 import type { CsvColumnMap } from './map-csv-columns.js';
-import { EARLIEST_TIME_MS, LATEST_TIME_MS } from './parse-log-time.js';
+import { EARLIEST_TIME_MS, LATEST_TIME_MS, type LogTimeParser } from './parse-log-time.js';
 import type { FixBatch } from './read-event.js';
 
 /** Rows gathered before a batch is handed on. */
@@ -14,6 +14,16 @@ const KIND_TIME_MS = 3;
 const KIND_NUMBER = 4;
 const KIND_LAT = 5;
 const KIND_LON = 6;
+const KIND_DATE = 7;
+const KIND_TIME_OF_DAY = 8;
+
+/** Days per month of a common year (February 29 is checked apart). */
+const MONTH_DAYS = [31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
+/**
+ * Milliseconds of a three-digit fraction of a second as the general path computes them for a time
+ * of day (`Number("0.fff") * 1000`, not always an integer), so both paths give the same bits.
+ */
+const FRACTION_MS = Array.from({ length: 1000 }, (_, k) => Number(`0.${String(k).padStart(3, '0')}`) * 1000);
 
 /** 10^k for k = 0..22, all exact in binary64. */
 const POW10 = Array.from({ length: 23 }, (_, k) => 10 ** k);
@@ -36,10 +46,17 @@ export class FastCsvRowReader {
   readonly #scales: Float64Array;
   readonly #wrap: Uint8Array;
   readonly #required: Uint8Array;
+  #dateAndTime = false;
+  readonly #times: LogTimeParser;
   #dayKey = -1;
   #dayMs = 0;
+  /** Scratch of the row being read: its date (UTC ms of midnight) and time of day (ms, and whether it ended in `Z`). */
+  #rowDayMs = Number.NaN;
+  #rowTimeOfDayMs = Number.NaN;
+  #rowTimeOfDayUtc = false;
 
-  private constructor(delimiter: string, decimalComma: boolean, width: number) {
+  private constructor(delimiter: string, decimalComma: boolean, width: number, times: LogTimeParser) {
+    this.#times = times;
     this.#delimiter = delimiter;
     this.#decimalMark2 = decimalComma ? 44 : 46;
     this.#width = width;
@@ -51,24 +68,24 @@ export class FastCsvRowReader {
     this.batch = { count: 0, lines: new Uint32Array(FAST_BATCH_ROWS), columns: {} };
   }
 
-  /** A reader for this layout, or `undefined` when the layout needs the general path (projected, date + time columns). */
+  /**
+   * A reader for this layout, or `undefined` when the layout needs the general path (projected).
+   * Times go through `times` as on the general path (zone, last time read).
+   */
   static create(
     map: CsvColumnMap,
     delimiter: string,
     decimalComma: boolean,
     width: number,
+    times: LogTimeParser,
   ): FastCsvRowReader | undefined {
     const c = map.columns;
-    if (
-      c.latDeg === undefined ||
-      c.lonDeg === undefined ||
-      c.timeMs === undefined ||
-      c.time !== undefined ||
-      c.date !== undefined
-    )
-      return undefined;
+    if (c.latDeg === undefined || c.lonDeg === undefined) return undefined;
+    // one date-time column, or a date column beside a time-of-day column
+    const dateAndTime = c.timeMs === undefined && c.date !== undefined && c.time?.timeForm === 'time-of-day';
+    if (!dateAndTime && (c.timeMs === undefined || c.time !== undefined || c.date !== undefined)) return undefined;
     if (delimiter.length !== 1 || width > 256) return undefined;
-    const reader = new FastCsvRowReader(delimiter, decimalComma, width);
+    const reader = new FastCsvRowReader(delimiter, decimalComma, width, times);
     const column = (name: FixColumnName): Float64Array => {
       let array = reader.batch.columns[name];
       if (array === undefined) {
@@ -77,11 +94,22 @@ export class FastCsvRowReader {
       }
       return array;
     };
-    const form = c.timeMs.timeForm;
-    reader.#kinds[c.timeMs.index] =
-      form === 'epoch-s' ? KIND_TIME_S : form === 'epoch-ms' ? KIND_TIME_MS : KIND_TIME_ISO;
-    reader.#targets[c.timeMs.index] = column('timeMs');
-    reader.#required[c.timeMs.index] = 1;
+    if (c.timeMs !== undefined) {
+      const form = c.timeMs.timeForm;
+      reader.#kinds[c.timeMs.index] =
+        form === 'epoch-s' ? KIND_TIME_S : form === 'epoch-ms' ? KIND_TIME_MS : KIND_TIME_ISO;
+      reader.#targets[c.timeMs.index] = column('timeMs');
+      reader.#required[c.timeMs.index] = 1;
+    } else if (c.date !== undefined && c.time !== undefined) {
+      reader.#dateAndTime = true;
+      const timeMs = column('timeMs');
+      reader.#kinds[c.date.index] = KIND_DATE;
+      reader.#targets[c.date.index] = timeMs;
+      reader.#required[c.date.index] = 1;
+      reader.#kinds[c.time.index] = KIND_TIME_OF_DAY;
+      reader.#targets[c.time.index] = timeMs;
+      reader.#required[c.time.index] = 1;
+    }
     reader.#kinds[c.latDeg.index] = KIND_LAT;
     reader.#targets[c.latDeg.index] = column('latDeg');
     reader.#required[c.latDeg.index] = 1;
@@ -181,9 +209,13 @@ export class FastCsvRowReader {
           if (this.#required[field] === 1) return false;
           target[k] = Number.NaN;
         } else if (kind === KIND_TIME_ISO) {
-          const t = this.#isoZ(text, start, end);
+          const t = this.#isoDateTime(text, start, end);
           if (Number.isNaN(t)) return false;
           target[k] = t;
+        } else if (kind === KIND_DATE) {
+          if (!this.#date(text, start, end)) return false;
+        } else if (kind === KIND_TIME_OF_DAY) {
+          if (!this.#timeOfDay(text, start, end)) return false;
         } else {
           let v = parseDecimal(text, start, end, this.#decimalMark2);
           if (Number.isNaN(v) && (kind === KIND_LAT || kind === KIND_LON))
@@ -194,8 +226,8 @@ export class FastCsvRowReader {
           } else if (kind === KIND_LON) {
             if (v < -180 || v > 180) return false;
           } else if (kind === KIND_TIME_S || kind === KIND_TIME_MS) {
-            v = kind === KIND_TIME_S ? v * 1000 : v;
-            if (!(v >= EARLIEST_TIME_MS && v < LATEST_TIME_MS)) return false;
+            v = this.#times.acceptUtcMs(kind === KIND_TIME_S ? v * 1000 : v);
+            if (Number.isNaN(v)) return false;
           } else {
             v = v * (this.#scales[field] as number) + 0;
             if (this.#wrap[field] === 1 && (v < 0 || v >= 360)) v = normaliseAzimuthDeg(v);
@@ -211,6 +243,13 @@ export class FastCsvRowReader {
       start = end + 1;
     }
     if (field !== width) return false;
+    if (this.#dateAndTime) {
+      // the general path's `fromFields`: wall clock plus the fraction, then the offset or the zone
+      const wall = this.#rowDayMs + this.#rowTimeOfDayMs;
+      const t = this.#rowTimeOfDayUtc ? this.#times.acceptUtcMs(wall) : this.#times.wallToUtcMs(wall);
+      if (Number.isNaN(t)) return false;
+      (this.batch.columns.timeMs as Float64Array)[k] = t;
+    }
     if (!Number.isNaN(depth)) {
       this.depthCount++;
       if (depth < 0) this.negativeDepthCount++;
@@ -220,34 +259,32 @@ export class FastCsvRowReader {
     return true;
   }
 
-  /** `YYYY-MM-DDTHH:MM:SS[.fff]Z` between `start` and `end`, or `NaN`. */
-  #isoZ(s: string, start: number, end: number): number {
+  /**
+   * `YYYY-MM-DDTHH:MM:SS[.fff]Z` (or a space for `T`) between `start` and `end` in UTC ms, or the
+   * same without `Z` (`.fff` exactly three digits) read in the parser's zone; `NaN` for anything else.
+   */
+  #isoDateTime(s: string, start: number, end: number): number {
     const len = end - start;
-    if (len < 20 || s.charCodeAt(end - 1) !== 90) return Number.NaN;
-    if (s.charCodeAt(start + 4) !== 45 || s.charCodeAt(start + 7) !== 45) return Number.NaN;
+    if (len < 19 || s.charCodeAt(start + 4) !== 45 || s.charCodeAt(start + 7) !== 45) return Number.NaN;
     const sep = s.charCodeAt(start + 10);
     if ((sep !== 84 && sep !== 32) || s.charCodeAt(start + 13) !== 58 || s.charCodeAt(start + 16) !== 58)
       return Number.NaN;
-    const year = digits(s, start, 4);
-    const month = digits(s, start + 5, 2);
-    const day = digits(s, start + 8, 2);
+    const dayMs = this.#dayStart(s, start);
+    if (Number.isNaN(dayMs)) return Number.NaN;
     const hour = digits(s, start + 11, 2);
     const minute = digits(s, start + 14, 2);
     const second = digits(s, start + 17, 2);
-    if (
-      year < 0 ||
-      month < 1 ||
-      month > 12 ||
-      day < 1 ||
-      day > 28 ||
-      hour < 0 ||
-      hour > 23 ||
-      minute < 0 ||
-      minute > 59 ||
-      second < 0 ||
-      second > 59
-    ) {
-      return Number.NaN; // day 29-31 and leap seconds go the general way, which checks the calendar
+    // leap seconds go the general way
+    if (hour < 0 || hour > 23 || minute < 0 || minute > 59 || second < 0 || second > 59) return Number.NaN;
+    const clock = dayMs + hour * 3_600_000 + minute * 60_000 + second * 1000;
+    if (s.charCodeAt(end - 1) !== 90) {
+      // no `Z`: a wall-clock time, split at `T` or the space into a date and a time of day
+      // (`parseDateAndTime`), the fraction as a time of day's
+      if (len === 19) return this.#times.wallToUtcMs(clock);
+      if (len !== 23 || s.charCodeAt(start + 19) !== 46) return Number.NaN;
+      const fraction = digits(s, start + 20, 3);
+      if (fraction < 0) return Number.NaN;
+      return this.#times.wallToUtcMs(clock + (FRACTION_MS[fraction] as number));
     }
     let ms = 0;
     if (len > 20) {
@@ -260,13 +297,50 @@ export class FastCsvRowReader {
         scale /= 10;
       }
     } else if (len !== 20) return Number.NaN;
-    const key = year * 10000 + month * 100 + day;
-    if (key !== this.#dayKey) {
-      this.#dayKey = key;
-      this.#dayMs = Date.UTC(year, month - 1, day);
+    return this.#times.acceptUtcMs(clock + ms);
+  }
+
+  /** A date cell `YYYY-MM-DD` into the row's scratch; `false` for anything else. */
+  #date(s: string, start: number, end: number): boolean {
+    if (end - start !== 10 || s.charCodeAt(start + 4) !== 45 || s.charCodeAt(start + 7) !== 45) return false;
+    this.#rowDayMs = this.#dayStart(s, start);
+    return !Number.isNaN(this.#rowDayMs);
+  }
+
+  /** A time-of-day cell `HH:MM:SS[.fff][Z]` into the row's scratch; `false` for anything else. */
+  #timeOfDay(s: string, start: number, end: number): boolean {
+    let len = end - start;
+    const utc = s.charCodeAt(end - 1) === 90;
+    if (utc) len--;
+    if ((len !== 8 && len !== 12) || s.charCodeAt(start + 2) !== 58 || s.charCodeAt(start + 5) !== 58) return false;
+    const hour = digits(s, start, 2);
+    const minute = digits(s, start + 3, 2);
+    const second = digits(s, start + 6, 2);
+    if (hour < 0 || hour > 23 || minute < 0 || minute > 59 || second < 0 || second > 59) return false;
+    let ms = 0;
+    if (len === 12) {
+      const fraction = digits(s, start + 9, 3);
+      if (s.charCodeAt(start + 8) !== 46 || fraction < 0) return false;
+      ms = FRACTION_MS[fraction] as number;
     }
-    const t = this.#dayMs + hour * 3_600_000 + minute * 60_000 + second * 1000 + ms;
-    return t >= EARLIEST_TIME_MS && t < LATEST_TIME_MS ? t : Number.NaN;
+    this.#rowTimeOfDayMs = hour * 3_600_000 + minute * 60_000 + second * 1000 + ms;
+    this.#rowTimeOfDayUtc = utc;
+    return true;
+  }
+
+  /** UTC ms of midnight of the `YYYY-MM-DD` at `start` (calendar checked), or `NaN`. */
+  #dayStart(s: string, start: number): number {
+    const year = digits(s, start, 4);
+    const month = digits(s, start + 5, 2);
+    const day = digits(s, start + 8, 2);
+    if (year < 0 || month < 1 || month > 12 || day < 1) return Number.NaN;
+    const key = year * 10000 + month * 100 + day;
+    if (key === this.#dayKey) return this.#dayMs;
+    const leap = year % 4 === 0 && (year % 100 !== 0 || year % 400 === 0);
+    if (day > (month === 2 && leap ? 29 : (MONTH_DAYS[month - 1] as number))) return Number.NaN;
+    this.#dayKey = key;
+    this.#dayMs = Date.UTC(year, month - 1, day);
+    return this.#dayMs;
   }
 }
 

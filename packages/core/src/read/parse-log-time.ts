@@ -87,6 +87,9 @@ export class LogTimeParser {
   readonly zone: string;
   #lastMs = Number.NEGATIVE_INFINITY;
   #offsetCache = new Map<number, number>();
+  /** The 30-minute slot of the last wall time `wallToUtcMs` read uniquely, and its offset. */
+  #wallSlot = Number.NaN;
+  #wallSlotOffset = 0;
   /** Set once an ambiguous local time (clocks going back) has been resolved. */
   sawAmbiguousLocalTime = false;
   /** Set once a time without offset was read as UTC because no zone was given. */
@@ -158,6 +161,42 @@ export class LogTimeParser {
   /** Range-checks and accepts an already computed UTC time. */
   acceptUtc(timeMs: number): ParsedTime {
     return this.#accept(timeMs, true);
+  }
+
+  /**
+   * For the CSV fast path: range-checks an already computed UTC time and remembers it as the last
+   * time (as `parseDateTime` would), without allocating a result; `NaN` when out of range.
+   */
+  acceptUtcMs(timeMs: number): number {
+    if (!(timeMs >= EARLIEST_TIME_MS && timeMs < LATEST_TIME_MS)) return Number.NaN;
+    this.#lastMs = timeMs;
+    return timeMs;
+  }
+
+  /**
+   * For the CSV fast path: a wall-clock time without offset (ms as if it were UTC) in UTC ms, the
+   * same as `fromFields` gives, when that reading is unique and in range; `NaN` otherwise (the hour
+   * the clocks skip or repeat, out of range), leaving the row to the general path.
+   */
+  wallToUtcMs(wallMs: number): number {
+    if (this.zone === 'UTC') {
+      this.sawZonelessTimeAsUtc = true;
+      return this.acceptUtcMs(wallMs);
+    }
+    // Every probe of `fromFields` lies in a slot fixed by the wall time's 30-minute slot when the
+    // offset is a whole number of half hours, so the answer holds for the whole slot.
+    const slot = Math.floor(wallMs / 1_800_000);
+    if (slot === this.#wallSlot) return this.acceptUtcMs(wallMs - this.#wallSlotOffset * 60_000);
+    const before = this.#offsetMinAt(wallMs - 43_200_000);
+    if (before !== this.#offsetMinAt(wallMs + 43_200_000)) return Number.NaN;
+    // both probes give the same offset, so the two candidates of `fromFields` are one
+    const utc = wallMs - before * 60_000;
+    if (this.#offsetMinAt(utc) !== before) return Number.NaN;
+    if (before % 30 === 0) {
+      this.#wallSlot = slot;
+      this.#wallSlotOffset = before;
+    }
+    return this.acceptUtcMs(utc);
   }
 
   #accept(timeMs: number, hadOffset: boolean): ParsedTime {

@@ -210,7 +210,7 @@ export function* readCsvEvents(
   const fast =
     buffered || missingTime !== undefined || missingPosition !== undefined
       ? undefined
-      : FastCsvRowReader.create(map, delimiter, decimalComma, width);
+      : FastCsvRowReader.create(map, delimiter, decimalComma, width, times);
   const all = (function* (): Generator<LogLineCursor> {
     const cursor = new LogLineCursor();
     for (const l of head) {
