@@ -1,7 +1,7 @@
 import type { FixColumnName } from '../model/track.js';
 import { normaliseAzimuthDeg, toMetres, toMetresPerSecond } from '../model/units.js';
 import type { CsvColumnMap } from './map-csv-columns.js';
-import { EARLIEST_TIME_MS, LATEST_TIME_MS, type LogTimeParser } from './parse-log-time.js';
+import type { LogTimeParser } from './parse-log-time.js';
 import type { FixBatch } from './read-event.js';
 
 /** Rows gathered before a batch is handed on. */
