@@ -139,8 +139,14 @@ export function convertFileTask(payload: ConvertTaskPayload): ConvertTaskResult 
       let utmStraddles: boolean | undefined;
       let utmNote = '';
       if (code.toLowerCase() === 'utm') {
-        const lat = [...tracks.flatMap((t) => Array.from(t.columns.latDeg)), ...read.waypoints.map((w) => w.latDeg)];
-        const lon = [...tracks.flatMap((t) => Array.from(t.columns.lonDeg)), ...read.waypoints.map((w) => w.lonDeg)];
+        const lat = joinColumns(
+          tracks.map((t) => t.columns.latDeg),
+          read.waypoints.map((w) => w.latDeg),
+        );
+        const lon = joinColumns(
+          tracks.map((t) => t.columns.lonDeg),
+          read.waypoints.map((w) => w.lonDeg),
+        );
         const choice = chooseUtmZone(lat, lon);
         code = choice.code;
         utmStraddles = choice.straddles;
@@ -168,4 +174,16 @@ export function convertFileTask(payload: ConvertTaskPayload): ConvertTaskResult 
     resolvedTracks,
     files: [{ suffix: '', extension: `.${payload.to}`, text }],
   };
+}
+
+/** Every track's column followed by the waypoints' values, as one array. */
+function joinColumns(columns: ArrayLike<number>[], more: number[]): Float64Array {
+  const joined = new Float64Array(columns.reduce((n, c) => n + c.length, more.length));
+  let at = 0;
+  for (const column of columns) {
+    joined.set(column, at);
+    at += column.length;
+  }
+  joined.set(more, at);
+  return joined;
 }
