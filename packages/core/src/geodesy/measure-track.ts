@@ -130,6 +130,8 @@ export function computeBoundingBox(latDeg: ArrayLike<number>, lonDeg: ArrayLike<
   const n = Math.min(latDeg.length, lonDeg.length);
   let south = Number.POSITIVE_INFINITY;
   let north = Number.NEGATIVE_INFINITY;
+  let least = Number.POSITIVE_INFINITY;
+  let most = Number.NEGATIVE_INFINITY;
   const lons = new Float64Array(n);
   let m = 0;
   for (let i = 0; i < n; i++) {
@@ -138,9 +140,16 @@ export function computeBoundingBox(latDeg: ArrayLike<number>, lonDeg: ArrayLike<
     if (Number.isNaN(lat) || Number.isNaN(lon)) continue;
     if (lat < south) south = lat;
     if (lat > north) north = lat;
-    lons[m++] = lon >= -180 && lon < 180 ? lon : ((((lon + 180) % 360) + 360) % 360) - 180;
+    const x = lon >= -180 && lon < 180 ? lon : ((((lon + 180) % 360) + 360) % 360) - 180;
+    lons[m++] = x;
+    // As the sort below orders them: -0 before 0.
+    if (x < least || (x === 0 && least === 0 && 1 / x < 0)) least = x;
+    if (x > most || (x === 0 && most === 0 && 1 / x > 0)) most = x;
   }
   if (m === 0) return undefined;
+  // Longitudes within less than 180°: the gap round the back is the largest, so the box is
+  // simply least to most (no sort needed).
+  if (most - least < 180) return { west: least, south, east: most, north };
   const sorted = lons.subarray(0, m).sort();
   // The box is the complement of the largest empty gap between consecutive longitudes (circularly).
   let gap = (sorted[0] as number) + 360 - (sorted[m - 1] as number);

@@ -1,7 +1,8 @@
 import { createReprojection } from '../crs/create-reprojection.js';
 import type { ResolvedCrs } from '../crs/resolve-crs.js';
-import type { FixColumnName } from '../model/track.js';
+import { type FixColumnName, hasColumnValues } from '../model/track.js';
 import { formatDecimal, formatIsoTime } from './format-decimal.js';
+import { TextBuffer } from './text-buffer.js';
 import { segmentRanges, type WriteInput } from './write-input.js';
 
 /** Options of `writeCsv`. */
@@ -65,9 +66,7 @@ export function writeCsv(input: WriteInput, options: WriteCsvOptions = {}): stri
       ? ['crs_lon_deg', 'crs_lat_deg']
       : [`easting_${unitSuffix(crs.unit)}`, `northing_${unitSuffix(crs.unit)}`];
   const crsDecimals = crs?.kind === 'geographic' ? degDecimals : projDecimals;
-  const used = OPTIONAL_COLUMNS.filter(([column]) =>
-    input.tracks.some((t) => t.columns[column].some((v) => !Number.isNaN(v))),
-  );
+  const used = OPTIONAL_COLUMNS.filter(([column]) => input.tracks.some((t) => hasColumnValues(t.columns[column])));
   const hasWaypointDepth = input.waypoints.some((w) => Number.isFinite(w.depthM));
   const columns = [...used];
   if (hasWaypointDepth && !columns.some(([c]) => c === 'depthM')) columns.unshift(['depthM', 'depth_m']);
@@ -82,7 +81,11 @@ export function writeCsv(input: WriteInput, options: WriteCsvOptions = {}): stri
     ...crsHeaders,
     ...columns.map(([, h]) => h),
   ];
-  const rows: string[] = [header.map((h) => quote(h, sep)).join(sep)];
+  // Rows go straight into one byte buffer: a million fixes make tens of millions of fields, and a
+  // string per field (joined per row, then per file) costs more than formatting the numbers.
+  const out = new TextBuffer();
+  out.text(`${header.map((h) => quote(h, sep)).join(sep)}\r\n`);
+  const sepCode = sep.charCodeAt(0);
   for (const track of input.tracks) {
     const c = track.columns;
     const projected = reprojection?.forward(c.lonDeg, c.latDeg);
@@ -93,13 +96,26 @@ export function writeCsv(input: WriteInput, options: WriteCsvOptions = {}): stri
     const optional = columns.map(([column]) => c[column]);
     for (let s = 0; s < ranges.length; s++) {
       const [start, end] = ranges[s] as [number, number];
-      const segmentFields = `${trackFields}${s + 1}${nameField}`;
+      const segmentFields = TextBuffer.encode(`${trackFields}${s + 1}${nameField}`);
       for (let i = start; i < end; i++) {
-        let row = `${segmentFields}${formatIsoTime(c.timeMs[i] as number)}${sep}${formatDecimal(c.latDeg[i] as number, degDecimals)}${sep}${formatDecimal(c.lonDeg[i] as number, degDecimals)}`;
-        if (projected)
-          row += `${sep}${formatDecimal(projected.x[i] as number, crsDecimals)}${sep}${formatDecimal(projected.y[i] as number, crsDecimals)}`;
-        for (const values of optional) row += `${sep}${formatDecimal(values[i] as number)}`;
-        rows.push(row);
+        out.bytes(segmentFields);
+        out.isoTime(c.timeMs[i] as number);
+        out.char(sepCode);
+        out.fixed(c.latDeg[i] as number, degDecimals);
+        out.char(sepCode);
+        out.fixed(c.lonDeg[i] as number, degDecimals);
+        if (projected) {
+          out.char(sepCode);
+          out.fixed(projected.x[i] as number, crsDecimals);
+          out.char(sepCode);
+          out.fixed(projected.y[i] as number, crsDecimals);
+        }
+        for (const values of optional) {
+          out.char(sepCode);
+          out.shortest(values[i] as number);
+        }
+        out.char(13);
+        out.char(10);
       }
     }
   }
@@ -123,8 +139,8 @@ export function writeCsv(input: WriteInput, options: WriteCsvOptions = {}): stri
           formatDecimal(projected.y[i] as number, crsDecimals),
         );
       for (const [column] of columns) fields.push(column === 'depthM' ? formatDecimal(w.depthM) : '');
-      rows.push(fields.map((f) => quote(f, sep)).join(sep));
+      out.text(`${fields.map((f) => quote(f, sep)).join(sep)}\r\n`);
     });
   }
-  return `${rows.join('\r\n')}\r\n`;
+  return out.toString();
 }

@@ -1,6 +1,7 @@
 import { computeBoundingBox } from '../geodesy/measure-track.js';
 import type { Track } from '../model/track.js';
 import { formatIsoTime } from './format-decimal.js';
+import { TextBuffer } from './text-buffer.js';
 import { segmentRanges, type WriteInput, withSurfaceTracks, wrapLongitude } from './write-input.js';
 
 /** The media type of GeoJSON (RFC 7946 §12). */
@@ -31,13 +32,21 @@ export interface WriteGeoJsonOptions {
 // One line of a track feature: positions (already rounded) with their times (ms, NaN when
 // unknown) and depths, in parallel arrays (no per-position objects on this hot path).
 interface Piece {
+  lon: ArrayLike<number>;
+  lat: ArrayLike<number>;
+  timeMs: ArrayLike<number>;
+  depthM: ArrayLike<number>;
+}
+
+// Pieces as the antimeridian split builds them, point by point.
+interface GrowingPiece extends Piece {
   lon: number[];
   lat: number[];
   timeMs: number[];
   depthM: number[];
 }
 
-function newPiece(): Piece {
+function newPiece(): GrowingPiece {
   return { lon: [], lat: [], timeMs: [], depthM: [] };
 }
 
@@ -48,12 +57,12 @@ function round(value: number, decimals: number): number {
 
 // Splits a line where consecutive points are more than 180° apart in longitude (it crosses the
 // antimeridian the short way), adding the crossing point on both sides (RFC 7946 §3.1.9).
-function splitAtAntimeridian(track: Track, start: number, end: number, decimals: number): Piece[] {
+function splitAtAntimeridian(track: Track, start: number, end: number, decimals: number): GrowingPiece[] {
   const c = track.columns;
-  const pieces: Piece[] = [];
+  const pieces: GrowingPiece[] = [];
   let piece = newPiece();
   let prev = -1;
-  const push = (p: Piece, lon: number, lat: number, timeMs: number, depthM: number) => {
+  const push = (p: GrowingPiece, lon: number, lat: number, timeMs: number, depthM: number) => {
     p.lon.push(round(lon, decimals));
     p.lat.push(round(lat, decimals));
     p.timeMs.push(timeMs);
@@ -94,11 +103,67 @@ function splitAtAntimeridian(track: Track, start: number, end: number, decimals:
   return pieces.filter((p) => p.lon.length > 0);
 }
 
-// A track as one compact GeoJSON Feature, serialised here rather than through JSON.stringify of
-// nested arrays (the same text: JSON numbers are JavaScript's shortest round-trip digits).
-function trackFeature(track: Track, decimals: number, gapMs: number | undefined): string | undefined {
-  const pieces = segmentRanges(track, gapMs).flatMap(([s, e]) => splitAtAntimeridian(track, s, e, decimals));
-  if (pieces.length === 0) return undefined;
+// Whether the positioned fixes of [start, end) ever jump more than 180° in longitude (then the
+// line is cut at the antimeridian).
+function crossesAntimeridian(track: Track, start: number, end: number): boolean {
+  const c = track.columns;
+  let lon0 = Number.NaN;
+  for (let i = start; i < end; i++) {
+    const lat = c.latDeg[i] as number;
+    const lon = wrapLongitude(c.lonDeg[i] as number);
+    if (!Number.isFinite(lat) || !Number.isFinite(lon)) continue;
+    if (Math.abs(lon - lon0) > 180) return true;
+    lon0 = lon;
+  }
+  return false;
+}
+
+// The positioned fixes of [start, end) as one piece in typed arrays (the usual case: no antimeridian).
+function wholePiece(track: Track, start: number, end: number, decimals: number): Piece | undefined {
+  const c = track.columns;
+  let n = 0;
+  for (let i = start; i < end; i++)
+    if (Number.isFinite(c.latDeg[i] as number) && Number.isFinite(c.lonDeg[i] as number)) n++;
+  if (n === 0) return undefined;
+  // A LineString needs two or more positions (RFC 7946 §3.1.4): a one-fix piece repeats its point.
+  const size = Math.max(n, 2);
+  const piece = {
+    lon: new Float64Array(size),
+    lat: new Float64Array(size),
+    timeMs: new Float64Array(size),
+    depthM: new Float64Array(size),
+  };
+  let k = 0;
+  for (let i = start; i < end; i++) {
+    const lat = c.latDeg[i] as number;
+    const lon = c.lonDeg[i] as number;
+    if (!Number.isFinite(lat) || !Number.isFinite(lon)) continue;
+    piece.lon[k] = round(wrapLongitude(lon), decimals);
+    piece.lat[k] = round(lat, decimals);
+    piece.timeMs[k] = c.timeMs[i] as number;
+    piece.depthM[k] = c.depthM[i] as number;
+    k++;
+  }
+  if (n === 1) {
+    piece.lon[1] = piece.lon[0] as number;
+    piece.lat[1] = piece.lat[0] as number;
+    piece.timeMs[1] = piece.timeMs[0] as number;
+    piece.depthM[1] = piece.depthM[0] as number;
+  }
+  return piece;
+}
+
+function trackPieces(track: Track, decimals: number, gapMs: number | undefined): Piece[] {
+  const ranges = segmentRanges(track, gapMs);
+  if (!ranges.some(([s, e]) => crossesAntimeridian(track, s, e))) {
+    const pieces: Piece[] = [];
+    for (const [s, e] of ranges) {
+      const piece = wholePiece(track, s, e, decimals);
+      if (piece) pieces.push(piece);
+    }
+    return pieces;
+  }
+  const pieces = ranges.flatMap(([s, e]) => splitAtAntimeridian(track, s, e, decimals));
   // A LineString needs two or more positions (RFC 7946 §3.1.4): a one-fix piece repeats its point.
   for (const p of pieces) {
     if (p.lon.length === 1) {
@@ -108,16 +173,19 @@ function trackFeature(track: Track, decimals: number, gapMs: number | undefined)
       p.depthM.push(p.depthM[0] as number);
     }
   }
-  const lats: number[] = [];
-  const lons: number[] = [];
-  for (const p of pieces)
-    for (let i = 0; i < p.lon.length; i++) {
-      lats.push(p.lat[i] as number);
-      lons.push(p.lon[i] as number);
-    }
-  const box = computeBoundingBox(lats, lons);
+  return pieces;
+}
+
+// A track as one compact GeoJSON Feature, serialised here rather than through JSON.stringify of
+// nested arrays (the same text: JSON numbers are JavaScript's shortest round-trip digits), straight
+// into the output's bytes.
+function writeTrackFeature(out: TextBuffer, track: Track, decimals: number, gapMs: number | undefined): boolean {
+  const pieces = trackPieces(track, decimals, gapMs);
+  if (pieces.length === 0) return false;
   const single = pieces.length === 1;
-  const nest = (each: (p: Piece) => string) => (single ? each(pieces[0] as Piece) : `[${pieces.map(each).join(',')}]`);
+  const box = single
+    ? computeBoundingBox((pieces[0] as Piece).lat, (pieces[0] as Piece).lon)
+    : computeBoundingBox(concatenate(pieces.map((p) => p.lat)), concatenate(pieces.map((p) => p.lon)));
   const bbox = box
     ? `"bbox":${JSON.stringify([box.west, box.south, box.east, box.north].map((v) => round(v, decimals)))},`
     : '';
@@ -127,37 +195,80 @@ function trackFeature(track: Track, decimals: number, gapMs: number | undefined)
     role: track.role,
     sourceFile: track.provenance.sourceFile,
   });
+  const nest = (each: (out: TextBuffer, p: Piece) => void) => {
+    if (single) {
+      each(out, pieces[0] as Piece);
+      return;
+    }
+    out.char(91);
+    pieces.forEach((p, k) => {
+      if (k > 0) out.char(44);
+      each(out, p);
+    });
+    out.char(93);
+  };
+  out.text(`{"type":"Feature",${bbox}"properties":${head.slice(0, -1)},"times":`);
   // Per-position values parallel to the coordinates (nested like them for a MultiLineString).
-  const properties = `${head.slice(0, -1)},"times":${nest(timesJson)},"depthsM":${nest(depthsJson)}}`;
-  const geometry = single
-    ? `{"type":"LineString","coordinates":${coordinatesJson(pieces[0] as Piece)}}`
-    : `{"type":"MultiLineString","coordinates":[${pieces.map(coordinatesJson).join(',')}]}`;
-  return `{"type":"Feature",${bbox}"properties":${properties},"geometry":${geometry}}`;
+  nest(writeTimes);
+  out.ascii(',"depthsM":');
+  nest(writeDepths);
+  out.ascii(
+    single
+      ? '},"geometry":{"type":"LineString","coordinates":'
+      : '},"geometry":{"type":"MultiLineString","coordinates":',
+  );
+  nest(writeCoordinates);
+  out.ascii('}}');
+  return true;
 }
 
-function coordinatesJson(p: Piece): string {
-  let text = '[';
-  for (let i = 0; i < p.lon.length; i++) text += `${i === 0 ? '' : ','}[${p.lon[i]},${p.lat[i]}]`;
-  return `${text}]`;
+function concatenate(parts: ArrayLike<number>[]): Float64Array {
+  const all = new Float64Array(parts.reduce((n, p) => n + p.length, 0));
+  let at = 0;
+  for (const p of parts) for (let i = 0; i < p.length; i++) all[at++] = p[i] as number;
+  return all;
 }
 
-function timesJson(p: Piece): string {
-  let text = '[';
-  for (let i = 0; i < p.timeMs.length; i++) {
-    const iso = formatIsoTime(p.timeMs[i] as number);
-    text += `${i === 0 ? '' : ','}${iso === '' ? 'null' : `"${iso}"`}`;
+function writeCoordinates(out: TextBuffer, p: Piece): void {
+  out.char(91);
+  for (let i = 0; i < p.lon.length; i++) {
+    out.ascii(i === 0 ? '[' : ',[');
+    out.number(p.lon[i] as number);
+    out.char(44);
+    out.number(p.lat[i] as number);
+    out.char(93);
   }
-  return `${text}]`;
+  out.char(93);
 }
 
-function depthsJson(p: Piece): string {
-  let text = '[';
+// ISO 8601 UTC in quotes, or null where formatIsoTime gives nothing (NaN, beyond the Date range).
+function writeTimes(out: TextBuffer, p: Piece): void {
+  out.char(91);
+  for (let i = 0; i < p.timeMs.length; i++) {
+    if (i > 0) out.char(44);
+    const t = p.timeMs[i] as number;
+    if (Math.abs(t) <= MAX_DATE_MS) {
+      out.char(34);
+      out.isoTime(t);
+      out.char(34);
+    } else out.ascii('null');
+  }
+  out.char(93);
+}
+
+/** The largest time a Date holds, ms either side of 1970 (ECMAScript's TimeClip). */
+const MAX_DATE_MS = 8.64e15;
+
+function writeDepths(out: TextBuffer, p: Piece): void {
+  out.char(91);
   for (let i = 0; i < p.depthM.length; i++) {
+    if (i > 0) out.char(44);
     const d = p.depthM[i] as number;
     // JSON.stringify writes -0 as 0; String(-0) does too.
-    text += `${i === 0 ? '' : ','}${Number.isFinite(d) ? String(d) : 'null'}`;
+    if (Number.isFinite(d)) out.number(d);
+    else out.ascii('null');
   }
-  return `${text}]`;
+  out.char(93);
 }
 
 // Keeps the part of a ring (longitudes unwrapped, so continuous) on one side of a meridian
@@ -236,6 +347,18 @@ function areaFeature(area: GeoJsonArea, decimals: number): object | undefined {
   return { type: 'Feature', properties: { name: area.name, kind: 'area' }, geometry };
 }
 
+// The tracks' columns followed by the other values, in one array.
+function joinColumns(columns: Float64Array[], others: number[], length: number): Float64Array {
+  const all = new Float64Array(length + others.length);
+  let at = 0;
+  for (const column of columns) {
+    all.set(column, at);
+    at += column.length;
+  }
+  all.set(others, at);
+  return all;
+}
+
 /**
  * Writes tracks (plus the surface unit logged beside vehicle fixes as its own track, see
  * `withSurfaceTracks`), waypoints and optional areas as an RFC 7946 GeoJSON FeatureCollection: positions
@@ -251,18 +374,10 @@ function areaFeature(area: GeoJsonArea, decimals: number): object | undefined {
 export function writeGeoJson(given: WriteInput, options: WriteGeoJsonOptions = {}): string {
   const input = options.surfaceFromColumns === false ? given : withSurfaceTracks(given);
   const decimals = options.coordinateDecimals ?? 7;
+  // Waypoints and areas (few) as strings; their positions count in the collection's box too.
   const features: string[] = [];
-  for (const t of input.tracks) {
-    const f = trackFeature(t, decimals, options.gapMs);
-    if (f) features.push(f);
-  }
   const lats: number[] = [];
   const lons: number[] = [];
-  for (const t of input.tracks)
-    for (let i = 0; i < t.length; i++) {
-      lats.push(t.columns.latDeg[i] as number);
-      lons.push(t.columns.lonDeg[i] as number);
-    }
   for (const w of input.waypoints) {
     if (!Number.isFinite(w.latDeg) || !Number.isFinite(w.lonDeg)) continue;
     lats.push(w.latDeg);
@@ -287,11 +402,38 @@ export function writeGeoJson(given: WriteInput, options: WriteGeoJsonOptions = {
     lats.push(...a.latDeg);
     lons.push(...a.lonDeg);
   }
-  const box = computeBoundingBox(lats, lons);
+  const trackLength = input.tracks.reduce((n, t) => n + t.length, 0);
+  const box = computeBoundingBox(
+    joinColumns(
+      input.tracks.map((t) => t.columns.latDeg),
+      lats,
+      trackLength,
+    ),
+    joinColumns(
+      input.tracks.map((t) => t.columns.lonDeg),
+      lons,
+      trackLength,
+    ),
+  );
   const bbox = box
     ? `"bbox":${JSON.stringify([box.west, box.south, box.east, box.north].map((v) => round(v, decimals)))},`
     : '';
-  const compact = `{"type":"FeatureCollection",${bbox}"features":[${features.join(',')}]}`;
+  // Track features (millions of numbers) go straight into the output's bytes.
+  const out = new TextBuffer();
+  out.ascii(`{"type":"FeatureCollection",${bbox}"features":[`);
+  let written = 0;
+  for (const t of input.tracks) {
+    const before = out.byteLength;
+    if (written > 0) out.char(44);
+    if (writeTrackFeature(out, t, decimals, options.gapMs)) written++;
+    else out.truncate(before);
+  }
+  for (const f of features) {
+    if (written++ > 0) out.char(44);
+    out.text(f);
+  }
+  out.ascii(']}');
+  const compact = out.toString();
   if (options.indent === undefined) return `${compact}\n`;
   return `${JSON.stringify(JSON.parse(compact), null, options.indent)}\n`;
 }

@@ -1,5 +1,4 @@
-import type { Track, Waypoint } from '../model/track.js';
-import { TrackBuilder } from '../model/track-builder.js';
+import { createFixColumns, type Track, type Waypoint } from '../model/track.js';
 import { normaliseLongitudeDeg } from '../model/units.js';
 
 /** What every writer takes: the tracks (vehicle and surface unit) and the waypoints (targets). */
@@ -45,27 +44,43 @@ export function withSurfaceTracks(input: WriteInput): WriteInput {
   const derived: Track[] = [];
   for (const track of input.tracks) {
     const c = track.columns;
-    const builder = new TrackBuilder(Math.max(1, track.length));
+    // Built column by column (the fixes the vehicle logged a surface position beside).
+    let n = 0;
+    for (let i = 0; i < track.length; i++)
+      if (!Number.isNaN(c.surfaceLatDeg[i] as number) && !Number.isNaN(c.surfaceLonDeg[i] as number)) n++;
+    if (n === 0) continue;
+    const columns = createFixColumns(n);
+    const sourceLines = new Uint32Array(n);
+    const segmentStarts: number[] = [];
     const starts = new Set(track.segmentStarts);
+    let segmentPending = true;
+    let k = 0;
     for (let i = 0; i < track.length; i++) {
-      if (starts.has(i)) builder.startSegment();
+      if (starts.has(i)) segmentPending = true;
       const lat = c.surfaceLatDeg[i] as number;
       const lon = c.surfaceLonDeg[i] as number;
       if (Number.isNaN(lat) || Number.isNaN(lon)) continue;
-      builder.push(
-        { timeMs: c.timeMs[i] as number, latDeg: lat, lonDeg: lon, headingDeg: c.surfaceHeadingDeg[i] as number },
-        track.sourceLines[i] ?? 0,
-      );
+      if (segmentPending) {
+        segmentStarts.push(k);
+        segmentPending = false;
+      }
+      columns.timeMs[k] = c.timeMs[i] as number;
+      columns.latDeg[k] = lat;
+      columns.lonDeg[k] = lon;
+      columns.headingDeg[k] = c.surfaceHeadingDeg[i] as number;
+      sourceLines[k] = track.sourceLines[i] ?? 0;
+      k++;
     }
-    if (builder.length === 0) continue;
-    derived.push(
-      builder.build({
-        id: `${track.id}#surface`,
-        role: 'surface',
-        name: `${track.name ?? track.id} (surface unit)`,
-        provenance: track.provenance,
-      }),
-    );
+    derived.push({
+      id: `${track.id}#surface`,
+      role: 'surface',
+      name: `${track.name ?? track.id} (surface unit)`,
+      provenance: track.provenance,
+      length: n,
+      columns,
+      segmentStarts,
+      sourceLines,
+    });
   }
   return derived.length === 0 ? input : { tracks: [...input.tracks, ...derived], waypoints: input.waypoints };
 }
