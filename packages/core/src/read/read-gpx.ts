@@ -11,6 +11,7 @@ import type { LogTextInput } from './read-csv.js';
 import { refusedLog } from './read-csv.js';
 import type { ReadEvent } from './read-event.js';
 import { findForbiddenXml } from './refuse-forbidden-xml.js';
+import { scanGpxFast } from './scan-gpx-fast.js';
 
 /** Text fed to the XML parser at a time: keeps the event queue, not the file, in memory. */
 const FEED_CHARS = 1 << 20;
@@ -88,19 +89,80 @@ interface TrackStats {
  * `unparsable-number`.
  */
 export function* readGpxEvents(input: LogTextInput, options: ReadOptions = {}): Generator<ReadEvent> {
-  const file = input.fileName;
+  const whole = singleChunk(input.chunks);
+  if (whole !== undefined) {
+    const fast = createGpxHandlers(input.fileName, options);
+    if (scanGpxFast(whole, fast)) {
+      yield* fast.queue;
+      yield* finishGpx(fast);
+      return;
+    }
+  }
+  const state = createGpxHandlers(input.fileName, options);
+  const parser = new SaxesParser({ xmlns: false, position: true, fileName: input.fileName });
+  parser.on('error', (error) => {
+    if (state.failed) return;
+    state.failed = true;
+    state.rowCount++;
+    state.reject(
+      parser.line,
+      'malformed-xml',
+      'well-formed XML',
+      error.message.replace(/^[^:]*:\d+:\d+: /, ''),
+      parser.column > 0 ? parser.column : undefined,
+    );
+  });
+  parser.on('opentag', (tag: SaxesTagPlain) => state.open(tag.name, tag.attributes, parser.line, parser.column));
+  parser.on('text', state.text);
+  parser.on('cdata', state.text);
+  parser.on('closetag', (tag) => state.close(tag.name));
+  const queue = state.queue;
+  for (const chunk of input.chunks) {
+    for (let at = 0; at < chunk.length && !state.failed; at += FEED_CHARS) {
+      parser.write(chunk.slice(at, at + FEED_CHARS));
+      yield* queue;
+      queue.length = 0;
+    }
+    if (state.failed) break;
+  }
+  if (!state.failed) parser.close();
+  yield* queue;
+  queue.length = 0;
+  yield* finishGpx(state);
+}
+
+/** The one string of a text given whole (as `readLog` gives it), else `undefined`. */
+function singleChunk(chunks: Iterable<string>): string | undefined {
+  return Array.isArray(chunks) && chunks.length === 1 && typeof chunks[0] === 'string' ? chunks[0] : undefined;
+}
+
+/** What the element handlers gathered, and the handlers themselves (driven by saxes or by `scanGpxFast`). */
+interface GpxHandlers {
+  queue: ReadEvent[];
+  rowCount: number;
+  version: string;
+  failed: boolean;
+  trackStats: TrackStats[];
+  reject: (line: number, code: Rejection['code'], expected: string, found: string, column?: number) => void;
+  open: (name: string, attributes: Record<string, string>, line: number, column: number) => void;
+  text: (t: string) => void;
+  close: (name: string) => void;
+}
+
+/**
+ * The reader's element handlers: one call per start tag, text piece and end tag, in document order.
+ * Events go to `queue`.
+ */
+function createGpxHandlers(file: string, options: ReadOptions): GpxHandlers {
   const times = new LogTimeParser('UTC');
   const queue: ReadEvent[] = [];
-  const parser = new SaxesParser({ xmlns: false, position: true, fileName: file });
-  let rowCount = 0;
-  let version = '';
-  let failed = false;
   const stack: string[] = [];
   let point: PointState | undefined;
   let track: TrackStats | undefined;
   const trackStats: TrackStats[] = [];
   let text = '';
   let waypointCount = 0;
+  const state = { queue, rowCount: 0, version: '', failed: false, trackStats } as GpxHandlers;
   const reject = (line: number, code: Rejection['code'], expected: string, found: string, column?: number) => {
     queue.push({
       kind: 'rejection',
@@ -108,6 +170,7 @@ export function* readGpxEvents(input: LogTextInput, options: ReadOptions = {}): 
         column === undefined ? { file, line, code, expected, found } : { file, line, column, code, expected, found },
     });
   };
+  state.reject = reject;
   const openTrackIfNeeded = () => {
     if (track === undefined || track.opened) return;
     track.opened = true;
@@ -117,26 +180,14 @@ export function* readGpxEvents(input: LogTextInput, options: ReadOptions = {}): 
     if (track.name !== undefined) event.name = track.name;
     queue.push(event);
   };
-  parser.on('error', (error) => {
-    if (failed) return;
-    failed = true;
-    rowCount++;
-    reject(
-      parser.line,
-      'malformed-xml',
-      'well-formed XML',
-      error.message.replace(/^[^:]*:\d+:\d+: /, ''),
-      parser.column > 0 ? parser.column : undefined,
-    );
-  });
-  parser.on('opentag', (tag: SaxesTagPlain) => {
-    const local = localName(tag.name);
+  state.open = (name, attributes, line, column) => {
+    const local = localName(name);
     const parent = stack[stack.length - 1];
     stack.push(local);
     text = '';
     if (stack.length === 1) {
-      version = tag.attributes.version ?? '';
-      if (local !== 'gpx') reject(parser.line, 'unknown-format', 'a <gpx> root element', `<${tag.name}>`);
+      state.version = attributes.version ?? '';
+      if (local !== 'gpx') reject(line, 'unknown-format', 'a <gpx> root element', `<${name}>`);
       return;
     }
     if (local === 'trk' || local === 'rte') {
@@ -164,29 +215,26 @@ export function* readGpxEvents(input: LogTextInput, options: ReadOptions = {}): 
       if (local !== 'wpt') openTrackIfNeeded();
       point = {
         kind: local,
-        line: parser.line,
-        column: parser.column,
-        lat: tag.attributes.lat ?? '',
-        lon: tag.attributes.lon ?? '',
+        line,
+        column,
+        lat: attributes.lat ?? '',
+        lon: attributes.lon ?? '',
       };
     }
-  });
+  };
   // Element text is capped: a 200 MB <name> must not be copied around; values that long are never numbers or times.
-  parser.on('text', (t) => {
+  state.text = (t) => {
     if (text.length < MAX_TEXT_CHARS) text += t.length > MAX_TEXT_CHARS ? t.slice(0, MAX_TEXT_CHARS) : t;
-  });
-  parser.on('cdata', (t) => {
-    if (text.length < MAX_TEXT_CHARS) text += t.length > MAX_TEXT_CHARS ? t.slice(0, MAX_TEXT_CHARS) : t;
-  });
-  parser.on('closetag', (tag) => {
-    if (failed) return;
-    const local = localName(tag.name);
+  };
+  state.close = (name) => {
+    if (state.failed) return;
+    const local = localName(name);
     stack.pop();
     const value = text.trim();
     text = '';
     if (point !== undefined) {
       if (local === point.kind) {
-        rowCount++;
+        state.rowCount++;
         finishPoint(point);
         point = undefined;
         return;
@@ -196,15 +244,10 @@ export function* readGpxEvents(input: LogTextInput, options: ReadOptions = {}): 
       else if (local === 'name') point.name = value;
       else if (local === 'desc') point.desc = value;
       else if (local === 'fix') point.fix = value;
-      else if (DEPTH_NAMES.test(local)) point.depth = value;
-      else if (HEADING_NAMES.test(local)) point.heading = value;
-      else if (SPEED_NAMES.test(local)) point.speed = value;
-      else if (RANGE_NAMES.test(local)) point.range = value;
-      else if (BEARING_NAMES.test(local)) point.bearing = value;
-      else if (QUALITY_NAMES.test(local)) point.quality = value;
-      else if (SURFACE_LAT_NAMES.test(local)) point.surfaceLat = value;
-      else if (SURFACE_LON_NAMES.test(local)) point.surfaceLon = value;
-      else if (SURFACE_HEADING_NAMES.test(local)) point.surfaceHeading = value;
+      else {
+        const key = extensionKey(local);
+        if (key !== undefined) point[key] = value;
+      }
       return;
     }
     if (track !== undefined) {
@@ -217,7 +260,7 @@ export function* readGpxEvents(input: LogTextInput, options: ReadOptions = {}): 
         track = undefined;
       }
     }
-  });
+  };
   const optionalValues = new Float64Array(OPTIONAL_KEYS.length);
   const finishPoint = (p: PointState) => {
     const lat = parseCoordinate(p.lat, 'lat');
@@ -310,17 +353,12 @@ export function* readGpxEvents(input: LogTextInput, options: ReadOptions = {}): 
     if (!Number.isNaN(numbers.surfaceHeading)) fix.surfaceHeadingDeg = normaliseAzimuthDeg(numbers.surfaceHeading);
     queue.push({ kind: 'fix', fix, line: p.line });
   };
-  for (const chunk of input.chunks) {
-    for (let at = 0; at < chunk.length && !failed; at += FEED_CHARS) {
-      parser.write(chunk.slice(at, at + FEED_CHARS));
-      yield* queue;
-      queue.length = 0;
-    }
-    if (failed) break;
-  }
-  if (!failed) parser.close();
-  yield* queue;
-  queue.length = 0;
+  return state;
+}
+
+/** The events after the last element: notes on routes and doubtful elevations, then the row count. */
+function* finishGpx(state: GpxHandlers): Generator<ReadEvent> {
+  const { trackStats, rowCount, version } = state;
   if (trackStats.some((t) => t.isRoute))
     yield { kind: 'note', text: 'routes are read as tracks without times (planned lines, not logged fixes)' };
   for (const t of trackStats) {
@@ -366,6 +404,30 @@ function decideGpxDepthSign(track: TrackStats, all: readonly TrackStats[]): Dept
     doubtful: false,
     reason: 'depth = -ele (GPX elevation is metres above the geoid/surface)',
   };
+}
+
+const EXTENSION_NAMES: ReadonlyArray<readonly [RegExp, OptionalKey]> = [
+  [DEPTH_NAMES, 'depth'],
+  [HEADING_NAMES, 'heading'],
+  [SPEED_NAMES, 'speed'],
+  [RANGE_NAMES, 'range'],
+  [BEARING_NAMES, 'bearing'],
+  [QUALITY_NAMES, 'quality'],
+  [SURFACE_LAT_NAMES, 'surfaceLat'],
+  [SURFACE_LON_NAMES, 'surfaceLon'],
+  [SURFACE_HEADING_NAMES, 'surfaceHeading'],
+];
+/** Extension element names already matched against `EXTENSION_NAMES` (a log repeats a handful of names per point). */
+const extensionKeys = new Map<string, OptionalKey | null>();
+
+/** The point value an extension element (by local name) holds, or `undefined` for one the reader does not use. */
+function extensionKey(local: string): OptionalKey | undefined {
+  let key = extensionKeys.get(local);
+  if (key === undefined) {
+    key = EXTENSION_NAMES.find(([pattern]) => pattern.test(local))?.[1] ?? null;
+    if (extensionKeys.size < 1024) extensionKeys.set(local, key);
+  }
+  return key ?? undefined;
 }
 
 function localName(name: string): string {
