@@ -8,6 +8,14 @@ const WORKER_ENTRY = import.meta.url.endsWith('.ts')
   : new URL('./worker.mjs', import.meta.url).href;
 
 /**
+ * Room for new objects in each worker's heap. Reading a log makes many short-lived objects; with
+ * V8's default (16 MB semi-spaces) they are collected so often that converting a season spent about
+ * a fifth more CPU time than with 32 MB semi-spaces (96 MB young generation), for ~20 MB more memory
+ * per worker (measured on the simulated season, one site, one worker).
+ */
+const YOUNG_GENERATION_MB = 96;
+
+/**
  * Runs the named tasks of `tasks.ts` on worker threads, so `--jobs` files are processed on as many
  * cores. With one job the task runs in this thread (no worker start-up cost, easy to debug).
  * A task takes and returns structured-cloneable data: file paths and settings in, results out.
@@ -29,7 +37,13 @@ export function createTaskPool(jobs: number): TaskPool {
       async destroy() {},
     };
   }
-  const pool = new Piscina({ filename: WORKER_ENTRY, minThreads: 1, maxThreads: jobs, idleTimeout: 1000 });
+  const pool = new Piscina({
+    filename: WORKER_ENTRY,
+    minThreads: 1,
+    maxThreads: jobs,
+    idleTimeout: 1000,
+    resourceLimits: { maxYoungGenerationSizeMb: YOUNG_GENERATION_MB },
+  });
   return {
     run<N extends TaskName>(name: N, payload: TaskPayload<N>): Promise<TaskResult<N>> {
       return pool.run({ name, payload }) as Promise<TaskResult<N>>;
