@@ -9,6 +9,9 @@ import {
 } from '../model/track.js';
 import type { FixBatch } from './read-event.js';
 
+/** Up to this many fixes of a batch are copied one by one (cheaper than a view per column). */
+const SMALL_BATCH = 16;
+
 /** Grows a track's columns by single fixes or whole batches (amortised doubling), then hands out a right-sized `Track`. */
 export class FixColumnAppender {
   #capacity: number;
@@ -17,6 +20,11 @@ export class FixColumnAppender {
   #lines: Uint32Array;
   #segmentStarts: number[] = [];
   #segmentPending = true;
+  /** The batch (and own columns) the column pairs below were found for. */
+  #pairedBatch: FixBatch | undefined;
+  #pairedColumns: FixColumns | undefined;
+  #sources: Float64Array[] = [];
+  #targets: Float64Array[] = [];
 
   constructor(initialCapacity = 1024) {
     this.#capacity = Math.max(1, initialCapacity);
@@ -54,13 +62,39 @@ export class FixColumnAppender {
     this.#reserve(n);
     const at = this.#length;
     this.#markSegment(at);
+    // Readers hand on the same batch again and again, often with a fix or two (NMEA between other
+    // sentences): the column pairs are found once per batch, and a few fixes are copied one by one
+    // rather than through a view per column.
+    if (batch !== this.#pairedBatch || this.#columns !== this.#pairedColumns) this.#pair(batch);
+    const sources = this.#sources;
+    const targets = this.#targets;
+    if (n <= SMALL_BATCH) {
+      for (let c = 0; c < sources.length; c++) {
+        const source = sources[c] as Float64Array;
+        const target = targets[c] as Float64Array;
+        for (let i = 0; i < n; i++) target[at + i] = source[i] as number;
+      }
+      for (let i = 0; i < n; i++) this.#lines[at + i] = batch.lines[i] as number;
+    } else {
+      for (let c = 0; c < sources.length; c++)
+        (targets[c] as Float64Array).set((sources[c] as Float64Array).subarray(0, n), at);
+      this.#lines.set(batch.lines.subarray(0, n), at);
+    }
+    this.#length = at + n;
+  }
+
+  #pair(batch: FixBatch): void {
+    this.#sources = [];
+    this.#targets = [];
     for (const name of FIX_COLUMN_NAMES) {
       const source = batch.columns[name];
       // the target is already NaN where no column is given (columns are created NaN-filled)
-      if (source !== undefined) this.#columns[name].set(source.subarray(0, n), at);
+      if (source === undefined) continue;
+      this.#sources.push(source);
+      this.#targets.push(this.#columns[name]);
     }
-    this.#lines.set(batch.lines.subarray(0, n), at);
-    this.#length = at + n;
+    this.#pairedBatch = batch;
+    this.#pairedColumns = this.#columns;
   }
 
   /** The finished track. */

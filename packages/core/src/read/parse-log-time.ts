@@ -78,6 +78,9 @@ function checkDate(year: number, month: number, day: number): DateFields | undef
   return { year, month, day };
 }
 
+/** Zones already found valid (checking one builds a formatter: milliseconds, once per reader otherwise). */
+const KNOWN_ZONES = new Set<string>();
+
 /**
  * Turns wall-clock times into UTC: directly when the text has an offset, through the IANA zone
  * (luxon's tz database, not hand-written rules) when it has none. Remembers the last time so an
@@ -97,8 +100,10 @@ export class LogTimeParser {
 
   /** `zone` is an IANA name or `UTC`; an unknown zone is a caller mistake (`InvalidArgumentError`). */
   constructor(zone = 'UTC') {
-    if (zone !== 'UTC' && !IANAZone.isValidZone(zone)) {
-      throw new InvalidArgumentError(`unknown IANA time zone "${zone}" (expected a name like Europe/Oslo or UTC)`);
+    if (zone !== 'UTC' && !KNOWN_ZONES.has(zone)) {
+      if (!IANAZone.isValidZone(zone))
+        throw new InvalidArgumentError(`unknown IANA time zone "${zone}" (expected a name like Europe/Oslo or UTC)`);
+      KNOWN_ZONES.add(zone);
     }
     this.zone = zone;
   }

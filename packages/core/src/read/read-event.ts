@@ -4,7 +4,8 @@ import type { DepthSignDecision, Fix, FixColumnName, Provenance, TrackRole, Wayp
 /**
  * Many fixes at once, column by column (the fast path of the tabular readers). Arrays may be longer
  * than `count`; only the first `count` values are fixes. The reader reuses the arrays after the
- * consumer asks for the next event, so a consumer copies what it keeps. A column left out is `NaN`.
+ * consumer asks for the next event, so a consumer copies what it keeps. A column left out is `NaN`;
+ * a batch keeps the same columns (the same arrays) once it has been handed on.
  */
 export interface FixBatch {
   count: number;

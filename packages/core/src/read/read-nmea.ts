@@ -72,6 +72,21 @@ const OTHER = 1;
 const GGA = 2;
 const RMC = 3;
 
+const HDT = 4;
+const VTG = 5;
+const ZDA = 6;
+
+/** HDT, VTG or ZDA (any letter case) from the last three characters of the address ending at `end`, else OTHER. */
+function otherSentenceKind(src: string, end: number): number {
+  const a = src.charCodeAt(end - 3) | 32;
+  const b = src.charCodeAt(end - 2) | 32;
+  const c = src.charCodeAt(end - 1) | 32;
+  if (a === 104 && b === 100 && c === 116) return HDT; // h d t
+  if (a === 118 && b === 116 && c === 103) return VTG; // v t g
+  if (a === 122 && b === 100 && c === 97) return ZDA; // z d a
+  return OTHER;
+}
+
 /** GGA or RMC (any letter case) from the last three characters of the address ending at `end`, else OTHER. */
 function sentenceKind(src: string, end: number): number {
   const a = src.charCodeAt(end - 3) | 32;
@@ -470,6 +485,46 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
       unused.set(address, (unused.get(address) ?? 0) + 1);
       yield { kind: 'non-fix-row', line, why: 'sentence type not used' };
       continue;
+    }
+    // the sentences that come with every fix, read in place; anything unusual goes the general way below
+    const other = otherSentenceKind(src, addressEnd);
+    if (other === HDT) {
+      const heading = fields.number(1);
+      if (!Number.isNaN(heading)) attachHeading(normaliseAzimuthDeg(heading));
+      yield { kind: 'non-fix-row', line, why: 'HDT merged into the current fix' };
+      continue;
+    }
+    if (other === VTG) {
+      // Older form `$--VTG,x.x,x,x.x,x.x`: field 2 is not the literal T (NMEA Revealed, VTG).
+      const newer = fields.letter(2) === 84 || fields.isEmpty(2);
+      const knots = fields.number(newer ? 5 : 3);
+      const kmh = fields.number(newer ? 7 : 4);
+      attachSpeed(!Number.isNaN(knots) ? knots * MPS_PER_KNOT : !Number.isNaN(kmh) ? kmh / 3.6 : Number.NaN);
+      yield { kind: 'non-fix-row', line, why: 'VTG merged into the current fix' };
+      continue;
+    }
+    if (other === ZDA) {
+      const tod = parseTimeOfDayIn(src, fields.start(1), fields.end(1));
+      const d = fields.end(2) - fields.start(2) === 2 ? twoDigits(src, fields.start(2)) : -1;
+      const m = fields.end(3) - fields.start(3) === 2 ? twoDigits(src, fields.start(3)) : -1;
+      const y4 = fields.start(4);
+      const y =
+        fields.end(4) - y4 === 4 && twoDigits(src, y4) >= 0 && twoDigits(src, y4 + 2) >= 0
+          ? twoDigits(src, y4) * 100 + twoDigits(src, y4 + 2)
+          : -1;
+      if (tod !== undefined && d >= 1 && d <= 31 && m >= 1 && m <= 12 && y >= 0) {
+        // as the general ZDA case below: this sentence's own event comes before the fixes it completes
+        yield { kind: 'non-fix-row', line, why: 'ZDA sets the date' };
+        flush();
+        const day = Date.UTC(y, m - 1, d);
+        if (undated.length > 0) {
+          for (const u of undated) emitEpoch(u, u.todMs > tod + HALF_DAY_MS ? day - DAY_MS : day);
+          undated.length = 0;
+        }
+        dayMs = day;
+        lastTodMs = tod;
+        continue;
+      }
     }
     const address = fields.get(0);
     const typeRaw = address.slice(address.length - 3);
