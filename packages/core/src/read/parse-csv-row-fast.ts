@@ -1,6 +1,6 @@
-import type { FixColumnName } from '../model/track.js';
+import type { Fix, FixColumnName } from '../model/track.js';
 import { normaliseAzimuthDeg, toMetres, toMetresPerSecond } from '../model/units.js';
-import type { CsvColumnMap } from './map-csv-columns.js';
+import type { CsvColumnMap, MappedColumn } from './map-csv-columns.js';
 import type { LogTimeParser } from './parse-log-time.js';
 import type { FixBatch } from './read-event.js';
 
@@ -16,6 +16,8 @@ const KIND_LAT = 5;
 const KIND_LON = 6;
 const KIND_DATE = 7;
 const KIND_TIME_OF_DAY = 8;
+/** A projected coordinate (easting, northing), kept as read until the batch is converted. */
+const KIND_PROJECTED = 9;
 
 /** Days per month of a common year (February 29 is checked apart). */
 const MONTH_DAYS = [31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
@@ -24,6 +26,51 @@ const MONTH_DAYS = [31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
  * of day (`Number("0.fff") * 1000`, not always an integer), so both paths give the same bits.
  */
 const FRACTION_MS = Array.from({ length: 1000 }, (_, k) => Number(`0.${String(k).padStart(3, '0')}`) * 1000);
+
+/** 1 for the kinds whose cells are read as a number first. */
+const NUMERIC_KINDS = new Uint8Array(16);
+for (const kind of [KIND_TIME_S, KIND_TIME_MS, KIND_NUMBER, KIND_LAT, KIND_LON, KIND_PROJECTED])
+  NUMERIC_KINDS[kind] = 1;
+
+/** Where the last `scanDecimal` stopped: the delimiter, the line's end, or the first character that is not part of a plain number. */
+let scanStop = 0;
+
+/**
+ * `parseDecimal` of the characters from `start` up to the next `delimiter` (or `end`), found in the
+ * same pass; `NaN` when another character comes first (`scanStop` then points at it).
+ */
+function scanDecimal(s: string, start: number, end: number, delimiter: number, decimalMark2: number): number {
+  let i = start;
+  let negative = false;
+  const first = s.charCodeAt(i);
+  if (first === 45 || first === 43) {
+    negative = first === 45;
+    i++;
+  }
+  let mantissa = 0;
+  let digitCount = 0;
+  let fraction = -1;
+  for (; i < end; i++) {
+    const c = s.charCodeAt(i);
+    const d = c - 48;
+    if (d >= 0 && d <= 9) {
+      mantissa = mantissa * 10 + d;
+      digitCount++;
+      if (fraction >= 0) fraction++;
+    } else if ((c === 46 || c === decimalMark2) && fraction < 0) {
+      fraction = 0;
+    } else if (c === delimiter) break;
+    else {
+      scanStop = i;
+      return Number.NaN;
+    }
+  }
+  scanStop = i;
+  if (digitCount === 0) return Number.NaN;
+  if (digitCount > 15) return parseDecimal(s, start, i, decimalMark2);
+  const value = fraction > 0 ? mantissa / (POW10[fraction] as number) : mantissa;
+  return negative ? -value : value;
+}
 
 /** 10^k for k = 0..22, all exact in binary64. */
 const POW10 = Array.from({ length: 23 }, (_, k) => 10 ** k);
@@ -39,6 +86,7 @@ export class FastCsvRowReader {
   depthCount = 0;
   negativeDepthCount = 0;
   readonly #delimiter: string;
+  readonly #delimiterCode: number;
   readonly #decimalMark2: number;
   readonly #width: number;
   readonly #kinds: Int8Array;
@@ -58,6 +106,7 @@ export class FastCsvRowReader {
   private constructor(delimiter: string, decimalComma: boolean, width: number, times: LogTimeParser) {
     this.#times = times;
     this.#delimiter = delimiter;
+    this.#delimiterCode = delimiter.charCodeAt(0);
     this.#decimalMark2 = decimalComma ? 44 : 46;
     this.#width = width;
     this.#kinds = new Int8Array(width);
@@ -69,8 +118,16 @@ export class FastCsvRowReader {
   }
 
   /**
-   * A reader for this layout, or `undefined` when the layout needs the general path (projected).
-   * Times go through `times` as on the general path (zone, last time read).
+   * Easting and northing (vehicle and surface unit) of the rows in the batch when the layout has
+   * projected coordinates, in the CRS's unit; `NaN` for a surface position left empty. The batch's
+   * latitude and longitude columns are filled from them by the caller (`setProjected` rows).
+   */
+  projected: { x: Float64Array; y: Float64Array; sx: Float64Array; sy: Float64Array } | undefined;
+
+  /**
+   * A reader for this layout, or `undefined` when the layout needs the general path. Times go
+   * through `times` as on the general path (zone, last time read). With `projected` (the
+   * caller has an input CRS), easting/northing columns are read into `projected`.
    */
   static create(
     map: CsvColumnMap,
@@ -78,9 +135,22 @@ export class FastCsvRowReader {
     decimalComma: boolean,
     width: number,
     times: LogTimeParser,
+    projected: { vehicle: boolean; surface: boolean } = { vehicle: false, surface: false },
   ): FastCsvRowReader | undefined {
     const c = map.columns;
-    if (c.latDeg === undefined || c.lonDeg === undefined) return undefined;
+    const metres = (m: MappedColumn | undefined) => m !== undefined && (m.lengthUnit ?? 'm') === 'm';
+    if (projected.vehicle) {
+      if (c.latDeg !== undefined || c.lonDeg !== undefined || !metres(c.easting) || !metres(c.northing))
+        return undefined;
+    } else if (c.latDeg === undefined || c.lonDeg === undefined) return undefined;
+    if (
+      projected.surface &&
+      (c.surfaceLatDeg !== undefined ||
+        c.surfaceLonDeg !== undefined ||
+        !metres(c.surfaceEasting) ||
+        !metres(c.surfaceNorthing))
+    )
+      return undefined;
     // one date-time column, or a date column beside a time-of-day column
     const dateAndTime = c.timeMs === undefined && c.date !== undefined && c.time?.timeForm === 'time-of-day';
     if (!dateAndTime && (c.timeMs === undefined || c.time !== undefined || c.date !== undefined)) return undefined;
@@ -110,12 +180,37 @@ export class FastCsvRowReader {
       reader.#targets[c.time.index] = timeMs;
       reader.#required[c.time.index] = 1;
     }
-    reader.#kinds[c.latDeg.index] = KIND_LAT;
-    reader.#targets[c.latDeg.index] = column('latDeg');
-    reader.#required[c.latDeg.index] = 1;
-    reader.#kinds[c.lonDeg.index] = KIND_LON;
-    reader.#targets[c.lonDeg.index] = column('lonDeg');
-    reader.#required[c.lonDeg.index] = 1;
+    if (projected.vehicle || projected.surface) {
+      const scratch = () => new Float64Array(FAST_BATCH_ROWS).fill(Number.NaN);
+      const xy = { x: scratch(), y: scratch(), sx: scratch(), sy: scratch() };
+      reader.projected = xy;
+      const read = (m: MappedColumn | undefined, target: Float64Array, required: boolean) => {
+        if (m === undefined) return;
+        reader.#kinds[m.index] = KIND_PROJECTED;
+        reader.#targets[m.index] = target;
+        reader.#required[m.index] = required ? 1 : 0;
+      };
+      if (projected.vehicle) {
+        read(c.easting, xy.x, true);
+        read(c.northing, xy.y, true);
+        column('latDeg');
+        column('lonDeg');
+      }
+      if (projected.surface) {
+        read(c.surfaceEasting, xy.sx, false);
+        read(c.surfaceNorthing, xy.sy, false);
+        column('surfaceLatDeg');
+        column('surfaceLonDeg');
+      }
+    }
+    if (c.latDeg !== undefined && c.lonDeg !== undefined) {
+      reader.#kinds[c.latDeg.index] = KIND_LAT;
+      reader.#targets[c.latDeg.index] = column('latDeg');
+      reader.#required[c.latDeg.index] = 1;
+      reader.#kinds[c.lonDeg.index] = KIND_LON;
+      reader.#targets[c.lonDeg.index] = column('lonDeg');
+      reader.#required[c.lonDeg.index] = 1;
+    }
     for (const [key, axis] of [
       ['surfaceLatDeg', KIND_LAT],
       ['surfaceLonDeg', KIND_LON],
@@ -177,6 +272,7 @@ export class FastCsvRowReader {
     for (; field < width; field++) {
       let end: number;
       let quoted = false;
+      let scanned: number | undefined;
       if (hasQuotes && text.charCodeAt(start) === 34) {
         // a quoted field (RFC 4180 §2, "" inside for a quote): read here only for a coordinate,
         // and only when the closing quote ends the field
@@ -184,6 +280,16 @@ export class FastCsvRowReader {
         if (end < 0) return false;
         if (end < n && !text.startsWith(this.#delimiter, end)) return false;
         quoted = true;
+      } else if (!hasQuotes && NUMERIC_KINDS[kinds[field] as number] === 1) {
+        // a number read while looking for the field's end (one pass over the characters)
+        scanned = scanDecimal(text, start, n, this.#delimiterCode, this.#decimalMark2);
+        end = scanStop;
+        if (end < n && text.charCodeAt(end) !== this.#delimiterCode) {
+          // not a plain number (a unit, degree symbols): the field's end, then the slower readers below
+          end = text.indexOf(this.#delimiter, end);
+          if (end < 0 || end > n) end = n;
+          scanned = Number.NaN;
+        }
       } else {
         end = text.indexOf(this.#delimiter, start);
         if (end < 0 || end > n) end = n;
@@ -217,7 +323,7 @@ export class FastCsvRowReader {
         } else if (kind === KIND_TIME_OF_DAY) {
           if (!this.#timeOfDay(text, start, end)) return false;
         } else {
-          let v = parseDecimal(text, start, end, this.#decimalMark2);
+          let v = scanned ?? parseDecimal(text, start, end, this.#decimalMark2);
           if (Number.isNaN(v) && (kind === KIND_LAT || kind === KIND_LON))
             v = parseDegreeSymbols(text, start, end, this.#decimalMark2, kind === KIND_LAT);
           if (Number.isNaN(v)) return false;
@@ -225,6 +331,8 @@ export class FastCsvRowReader {
             if (v < -90 || v > 90) return false;
           } else if (kind === KIND_LON) {
             if (v < -180 || v > 180) return false;
+          } else if (kind === KIND_PROJECTED) {
+            // kept as read (the general path's number, sign of zero included)
           } else if (kind === KIND_TIME_S || kind === KIND_TIME_MS) {
             v = this.#times.acceptUtcMs(kind === KIND_TIME_S ? v * 1000 : v);
             if (Number.isNaN(v)) return false;
@@ -243,6 +351,9 @@ export class FastCsvRowReader {
       start = end + 1;
     }
     if (field !== width) return false;
+    const xy = this.projected;
+    // a surface easting without its northing (or the reverse) is the general path's to reject
+    if (xy !== undefined && Number.isNaN(xy.sx[k] as number) !== Number.isNaN(xy.sy[k] as number)) return false;
     if (this.#dateAndTime) {
       // the general path's `fromFields`: wall clock plus the fraction, then the offset or the zone
       const wall = this.#rowDayMs + this.#rowTimeOfDayMs;
@@ -257,6 +368,39 @@ export class FastCsvRowReader {
     this.batch.lines[k] = line;
     this.batch.count = k + 1;
     return true;
+  }
+
+  /**
+   * Appends a row the general path read (projected layouts keep every row in the batch until it is
+   * converted): the fix's values into the batch columns, `NaN` where it has none.
+   */
+  appendFix(fix: Fix, line: number, x: number, y: number, sx: number, sy: number): void {
+    const k = this.batch.count;
+    const columns = this.batch.columns;
+    for (const name in columns) {
+      const value = fix[name as FixColumnName];
+      (columns[name as FixColumnName] as Float64Array)[k] = value === undefined ? Number.NaN : value;
+    }
+    const xy = this.projected;
+    if (xy !== undefined) {
+      xy.x[k] = x;
+      xy.y[k] = y;
+      xy.sx[k] = sx;
+      xy.sy[k] = sy;
+    }
+    this.batch.lines[k] = line;
+    this.batch.count = k + 1;
+  }
+
+  /** Copies row `from` of the batch to row `to` (to drop rows in place, `to` <= `from`). */
+  moveRow(from: number, to: number): void {
+    if (from === to) return;
+    const columns = this.batch.columns;
+    for (const name in columns) {
+      const array = columns[name as FixColumnName] as Float64Array;
+      array[to] = array[from] as number;
+    }
+    this.batch.lines[to] = this.batch.lines[from] as number;
   }
 
   /**

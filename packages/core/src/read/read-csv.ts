@@ -1,3 +1,4 @@
+import { convertToWgs84 } from '../crs/convert-to-wgs84.js';
 import type { RejectionCode } from '../model/rejection.js';
 import type { DepthSignDecision, Fix, FixColumnName, TrackRole } from '../model/track.js';
 import {
@@ -208,23 +209,97 @@ export function* readCsvEvents(
   };
   let headerSeen = !hasHeader;
   const fast =
-    buffered || missingTime !== undefined || missingPosition !== undefined
+    (buffered && options.inputCrs === undefined) || missingTime !== undefined || missingPosition !== undefined
       ? undefined
-      : FastCsvRowReader.create(map, delimiter, decimalComma, width, times);
-  const all = (function* (): Generator<LogLineCursor> {
-    const cursor = new LogLineCursor();
-    for (const l of head) {
-      cursor.source = l.text;
-      cursor.start = 0;
-      cursor.end = l.text.length;
-      cursor.line = l.line;
-      cursor.tooLongChars = l.tooLongChars ?? -1;
-      cursor.quoteCount = l.text.indexOf('"') < 0 ? 0 : 1;
-      yield cursor;
+      : FastCsvRowReader.create(map, delimiter, decimalComma, width, times, {
+          vehicle: projected,
+          surface: buffered && surfaceProjected,
+        });
+  // Projected rows wait in the fast reader's batch (read there or by the general path below) until
+  // it is full, as they waited in `projectedBuffer`, so rejections come out in the same order.
+  const fastProjected = buffered && fast !== undefined;
+  /** Converts the batch's easting/northing, then hands on its fixes and the rows that failed, in row order. */
+  const flushFastProjected = function* (): Generator<ReadEvent> {
+    const reader = fast as FastCsvRowReader;
+    const xy = reader.projected as NonNullable<FastCsvRowReader['projected']>;
+    const batch = reader.batch;
+    const n = batch.count;
+    if (n === 0) return;
+    const crs = options.inputCrs ?? '';
+    const vehicle = projected ? convertToWgs84(crs, xy.x.subarray(0, n), xy.y.subarray(0, n)) : undefined;
+    const surface = surfaceProjected ? convertToWgs84(crs, xy.sx.subarray(0, n), xy.sy.subarray(0, n)) : undefined;
+    const columns = batch.columns;
+    let kept = 0;
+    for (let k = 0; k < n; k++) {
+      const line = batch.lines[k] as number;
+      let failed: ReadEvent | undefined;
+      if (surface !== undefined) {
+        const sLat = surface.latDeg[k] ?? Number.NaN;
+        const sLon = surface.lonDeg[k] ?? Number.NaN;
+        const ok = Number.isFinite(sLat) && Number.isFinite(sLon) && Math.abs(sLat) <= 90 && Math.abs(sLon) <= 180;
+        (columns.surfaceLatDeg as Float64Array)[k] = ok ? sLat : Number.NaN;
+        (columns.surfaceLonDeg as Float64Array)[k] = ok ? sLon : Number.NaN;
+        const sx = xy.sx[k] as number;
+        const sy = xy.sy[k] as number;
+        if (!ok && Number.isFinite(sx) && Number.isFinite(sy))
+          failed = reject(
+            line,
+            'projection-failed',
+            `surface easting/northing convertible from ${crs}`,
+            `${sx}, ${sy}`,
+          );
+      }
+      if (failed === undefined && vehicle !== undefined) {
+        const lat = vehicle.latDeg[k] ?? Number.NaN;
+        const lon = vehicle.lonDeg[k] ?? Number.NaN;
+        if (!Number.isFinite(lat) || !Number.isFinite(lon) || Math.abs(lat) > 90 || Math.abs(lon) > 180)
+          failed = reject(
+            line,
+            'projection-failed',
+            `easting/northing convertible from ${crs}`,
+            `${xy.x[k] as number}, ${xy.y[k] as number}`,
+          );
+        else {
+          (columns.latDeg as Float64Array)[k] = lat;
+          (columns.lonDeg as Float64Array)[k] = lon;
+        }
+      }
+      if (failed === undefined) {
+        reader.moveRow(k, kept++);
+        continue;
+      }
+      // the fixes before a failed row go out before its rejection
+      if (kept > 0) {
+        batch.count = kept;
+        yield { kind: 'fix-batch', batch };
+        kept = 0;
+      }
+      yield failed;
     }
-    yield* lines;
-  })();
-  for (const c of all) {
+    batch.count = kept;
+    if (kept > 0) yield { kind: 'fix-batch', batch };
+    reader.reset();
+  };
+  // the sample lines first, then the rest; a plain function rather than a generator around the
+  // line generator (one generator step per line instead of two)
+  const headCursor = new LogLineCursor();
+  let headAt = 0;
+  const nextLine = (): LogLineCursor | undefined => {
+    const l = head[headAt];
+    if (l !== undefined) {
+      headAt++;
+      headCursor.source = l.text;
+      headCursor.start = 0;
+      headCursor.end = l.text.length;
+      headCursor.line = l.line;
+      headCursor.tooLongChars = l.tooLongChars ?? -1;
+      headCursor.quoteCount = l.text.indexOf('"') < 0 ? 0 : 1;
+      return headCursor;
+    }
+    const next = lines.next();
+    return next.done ? undefined : next.value;
+  };
+  for (let c = nextLine(); c !== undefined; c = nextLine()) {
     const line = c.line;
     if (c.tooLongChars >= 0) {
       rowCount++;
@@ -257,13 +332,17 @@ export function* readCsvEvents(
     if (fast !== undefined) {
       if (fast.read(src, start, end, line, c.quoteCount !== 0)) {
         if (fast.full) {
-          yield { kind: 'fix-batch', batch: fast.batch };
-          fast.reset();
+          if (fastProjected) yield* flushFastProjected();
+          else {
+            yield { kind: 'fix-batch', batch: fast.batch };
+            fast.reset();
+          }
         }
         continue;
       }
       // the general path keeps the order of rows: hand on what the fast path gathered first
-      if (fast.batch.count > 0) {
+      // (projected rows wait for their conversion, as they did in `projectedBuffer`)
+      if (!fastProjected && fast.batch.count > 0) {
         yield { kind: 'fix-batch', batch: fast.batch };
         fast.reset();
       }
@@ -451,6 +530,11 @@ export function* readCsvEvents(
           }
         }
       }
+      if (fastProjected) {
+        (fast as FastCsvRowReader).appendFix(fix, line, x, y, sx, sy);
+        if ((fast as FastCsvRowReader).full) yield* flushFastProjected();
+        continue;
+      }
       projectedBuffer.push({ fix, line, x, y, sx, sy });
       if (projectedBuffer.length >= 4096) yield* flushProjected();
       continue;
@@ -458,6 +542,7 @@ export function* readCsvEvents(
     yield { kind: 'fix', fix, line };
   }
   yield* flushProjected();
+  if (fastProjected) yield* flushFastProjected();
   if (fast !== undefined && fast.batch.count > 0) {
     yield { kind: 'fix-batch', batch: fast.batch };
     fast.reset();
