@@ -62,6 +62,7 @@ function sampleValues(): number[] {
     values.push(Math.round((next() - 0.5) * 2e10) / 1e8);
     values.push(next() * 10 ** Math.floor(next() * 30 - 12));
     values.push(Math.round(next() * 8000) / 8);
+    values.push(Math.round((next() - 0.5) * 3.6e9) / 1e7);
   }
   return values;
 }
@@ -94,8 +95,10 @@ describe('TextBuffer', () => {
   });
 
   it('writes the shortest digits exactly as formatDecimal(value) and String(value)', () => {
-    expect(mismatches(values, (o, v) => o.shortest(v), formatDecimal)).toEqual([]);
-    expect(mismatches(values, (o, v) => o.number(v), String)).toEqual([]);
+    for (const likelyDecimals of [0, 3, 7]) {
+      expect(mismatches(values, (o, v) => o.shortest(v, likelyDecimals), formatDecimal)).toEqual([]);
+      expect(mismatches(values, (o, v) => o.number(v, likelyDecimals), String)).toEqual([]);
+    }
   });
 
   it('writes ISO times exactly as formatIsoTime along a track, across days, before 1970 and out of range', () => {

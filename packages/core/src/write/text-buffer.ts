@@ -9,6 +9,31 @@ const POWERS_OF_TEN = Array.from({ length: 23 }, (_, k) => 10 ** k);
 /** Below this, an integer has at most 15 digits: every such decimal maps to its own double. */
 const FIFTEEN_DIGITS = 1e15;
 
+// The bits of a double, to read its binary exponent; HIGH_WORD is the index of the word that
+// holds sign and exponent (1 on little-endian machines).
+const BITS_VIEW = new Float64Array(1);
+const BITS_WORDS = new Uint32Array(BITS_VIEW.buffer);
+BITS_VIEW[0] = 1;
+const HIGH_WORD = BITS_WORDS[1] === 0x3ff00000 ? 1 : 0;
+/** Half an ulp of a double in [2^e, 2^(e+1)) is 2^(e-53), for e = 0…49 (values below 10^15). */
+const HALF_ULP = Array.from({ length: 50 }, (_, e) => 2 ** (e - 53));
+
+/** How close to a rounding decision's edge the long-digit path gives way to the general one. */
+const EDGE = 1e-9;
+
+// The rounding error of the double product p = a·b, so that a·b = p + error exactly (Dekker's
+// product with Veltkamp's split; no overflow for the magnitudes used here).
+function productError(a: number, b: number, p: number): number {
+  const SPLIT = 134_217_729; // 2^27 + 1
+  let t = SPLIT * a;
+  const aHigh = t - (t - a);
+  const aLow = a - aHigh;
+  t = SPLIT * b;
+  const bHigh = t - (t - b);
+  const bLow = b - bHigh;
+  return aHigh * bHigh - p + aHigh * bLow + aLow * bHigh + aLow * bLow;
+}
+
 /**
  * Output text built as UTF-8 bytes, for writers that emit millions of numbers: each number goes
  * straight in as digits instead of through a string of its own (no per-field strings, no long
@@ -79,14 +104,18 @@ export class TextBuffer {
     this.ascii(formatDecimal(value, decimals));
   }
 
-  /** Appends `formatDecimal(value)`: the shortest digits that read back to the same double. */
-  shortest(value: number): void {
-    if (!this.#shortestDigits(value)) this.ascii(formatDecimal(value));
+  /**
+   * Appends `formatDecimal(value)`: the shortest digits that read back to the same double.
+   * `likelyDecimals` (a guess, never changes the text) is tried first: a value
+   * with at most that many decimals is then found in one step.
+   */
+  shortest(value: number, likelyDecimals = 0): void {
+    if (!this.#shortestDigits(value, likelyDecimals)) this.ascii(formatDecimal(value));
   }
 
-  /** Appends `String(value)`, which is also JSON's text for a finite number. */
-  number(value: number): void {
-    if (!this.#shortestDigits(value)) this.ascii(String(value));
+  /** Appends `String(value)`, which is also JSON's text for a finite number; `likelyDecimals` as for `shortest`. */
+  number(value: number, likelyDecimals = 0): void {
+    if (!this.#shortestDigits(value, likelyDecimals)) this.ascii(String(value));
   }
 
   /** Appends `formatIsoTime(timeMs)` (nothing for `NaN`). */
@@ -143,30 +172,116 @@ export class TextBuffer {
     return decoder.decode(this.#bytes.subarray(0, this.#length));
   }
 
-  // Writes the shortest round-trip digits of a value in plain notation when it has at most 15
-  // significant digits and lies in [1e-6, 1e15) or is zero; returns false (nothing written) otherwise.
-  #shortestDigits(value: number): boolean {
+  // Writes the shortest round-trip digits of a value in plain notation (as String does for
+  // 1e-6 <= |value| < 1e21) when it is zero or in [1e-6, 1e15) and the digits are found exactly
+  // below; returns false (nothing written) otherwise.
+  //
+  // With k decimals, the only integer n that can give back the value as n / 10^k (a correctly
+  // rounded division, as reading "n·10^-k" is) is the nearest to value·10^k, as long as n has at
+  // most 15 digits; and distinct decimals of at most 15 significant digits are distinct doubles.
+  // So when that n gives the value back, n without its trailing zeros is the shortest form; and
+  // when it does not at 15 significant digits, no form of 15 or fewer digits exists.
+  #shortestDigits(value: number, likelyDecimals: number): boolean {
     const abs = Math.abs(value);
     if (abs === 0) {
       this.char(ZERO);
       return true;
     }
     if (!(abs >= 1e-6 && abs < FIFTEEN_DIGITS)) return false;
-    // The fewest decimals k whose nearest integer n gives back the value exactly (n / 10^k is
-    // correctly rounded, as reading "n·10^-k" is). With n below 10^15 that n is the only
-    // candidate for each k, so the first k found is the shortest form String(value) writes.
-    for (let k = 0; k < POWERS_OF_TEN.length; k++) {
-      const scale = POWERS_OF_TEN[k] as number;
-      const scaled = abs * scale;
-      if (scaled >= FIFTEEN_DIGITS) return false;
-      const n = Math.round(scaled);
-      if (n / scale === abs) {
-        if (value < 0) this.char(45);
-        this.#decimal(n, k, scale);
-        return true;
+    if (likelyDecimals > 0 && this.#digitsWith(value, abs, likelyDecimals)) return true;
+    // Decimals for 15 significant digits: value·10^k in [1e14, 1e15).
+    let wholeDigits = 0;
+    let k = 15;
+    if (abs >= 1) {
+      wholeDigits = 1;
+      while ((POWERS_OF_TEN[wholeDigits] as number) <= abs) wholeDigits++;
+      k = 15 - wholeDigits;
+    } else while (k < 22 && abs * (POWERS_OF_TEN[k] as number) < 1e14) k++;
+    const scale = POWERS_OF_TEN[k] as number;
+    const scaled = abs * scale;
+    // Rounded onto a decade's edge: left to the general path.
+    if (!(scaled >= 1e14 && scaled < 1e15)) return false;
+    if (this.#digitsWith(value, abs, k)) return true;
+    return wholeDigits > 0 && this.#longDigits(value, abs, wholeDigits);
+  }
+
+  // Writes the value with k decimals (trailing zeros dropped) when the nearest such decimal, of
+  // at most 15 digits, gives it back exactly; false (nothing written) otherwise.
+  #digitsWith(value: number, abs: number, k: number): boolean {
+    const scale = POWERS_OF_TEN[k] as number;
+    const n = Math.round(abs * scale);
+    if (!(n < FIFTEEN_DIGITS) || n / scale !== abs) return false;
+    if (value < 0) this.char(45);
+    this.#decimal(n, k, scale);
+    return true;
+  }
+
+  // Writes the 16- or 17-digit shortest form of a value in [1, 1e15) known to have none of 15 or
+  // fewer digits, as ECMAScript's Number::toString picks it: 16 digits when the nearest 16-digit
+  // decimal reads back to the value (it lies within half an ulp), else the nearest 17-digit one.
+  // The scaled value is taken exactly (Dekker's product, a double plus its rounding error);
+  // anything within 1e-9 of a decision's edge (a tie, the interval's end) and powers of two (whose
+  // interval is lopsided) are left to the general path (returns false, nothing written).
+  #longDigits(value: number, abs: number, wholeDigits: number): boolean {
+    // The binary exponent from the double's bits (abs >= 1, so normal); with a zero mantissa abs
+    // is a power of two.
+    BITS_VIEW[0] = abs;
+    const high = BITS_WORDS[HIGH_WORD] as number;
+    if ((high & 0xfffff) === 0 && BITS_WORDS[1 - HIGH_WORD] === 0) return false;
+    const halfUlp = HALF_ULP[(high >>> 20) - 1023];
+    if (halfUlp === undefined) return false;
+    for (let digits = 16; digits <= 17; digits++) {
+      const decimals = digits - wholeDigits;
+      const scale = POWERS_OF_TEN[decimals] as number;
+      const product = abs * scale;
+      const error = productError(abs, scale, product);
+      // The exact abs·scale is whole + fraction (fraction in about (-1, 2), good to 1e-16).
+      const whole = Math.floor(product);
+      const fraction = product - whole + error;
+      const step = Math.round(fraction);
+      const offset = Math.abs(fraction - step);
+      const half = halfUlp * scale;
+      if (Math.abs(offset - 0.5) < EDGE || Math.abs(offset - half) < EDGE) return false;
+      if (offset > half) continue;
+      const mark = this.#length;
+      if (value < 0) this.char(45);
+      if (!this.#longInteger(whole, step, digits)) {
+        this.#length = mark;
+        return false;
       }
+      // Digits written; put the point after the whole part and drop trailing zeros.
+      this.#reserve(1);
+      const b = this.#bytes;
+      const point = this.#length - decimals;
+      for (let i = this.#length; i > point; i--) b[i] = b[i - 1] as number;
+      b[point] = 46;
+      this.#length++;
+      while (b[this.#length - 1] === ZERO) this.#length--;
+      if (b[this.#length - 1] === 46) this.#length--;
+      return true;
     }
     return false;
+  }
+
+  // Writes whole + step (whole an integer below 10^17, step a small integer) as exactly `digits`
+  // digits; false (nothing written) when it has another number of digits.
+  #longInteger(whole: number, step: number, digits: number): boolean {
+    // Split at 10^9 so each part is exact (whole - high·10^9 is an exact small integer).
+    let high = Math.floor(whole / 1e9);
+    let rest = whole - high * 1e9 + step;
+    while (rest < 0) {
+      high--;
+      rest += 1e9;
+    }
+    while (rest >= 1e9) {
+      high++;
+      rest -= 1e9;
+    }
+    const highDigits = digits - 9;
+    if (high < (POWERS_OF_TEN[highDigits - 1] as number) || high >= (POWERS_OF_TEN[highDigits] as number)) return false;
+    this.#padded(high, highDigits);
+    this.#padded(rest, 9);
+    return true;
   }
 
   // Writes n·10^-decimals (n a non-negative integer below 10^15) with trailing zeros dropped.
@@ -183,27 +298,24 @@ export class TextBuffer {
 
   // Writes a non-negative integer below 10^15 with at least `width` digits (zeros in front).
   #padded(n: number, width: number): void {
+    if (n >= 1e9) {
+      // Two parts below 10^9 each, so the digits come from 32-bit integer arithmetic.
+      const high = Math.floor(n / 1e9);
+      this.#padded(high, width - 9);
+      this.#padded(n - high * 1e9, 9);
+      return;
+    }
     let count = 1;
-    while (count < 16 && (POWERS_OF_TEN[count] as number) <= n) count++;
+    while (count < 9 && (POWERS_OF_TEN[count] as number) <= n) count++;
     if (count < width) count = width;
     this.#reserve(count);
     const b = this.#bytes;
     let at = this.#length + count;
     this.#length = at;
-    if (n < 2 ** 31) {
-      // Small integers (nearly every field) divide in 32-bit integer arithmetic.
-      let rest = n | 0;
-      for (let i = 0; i < count; i++) {
-        const q = (rest / 10) | 0;
-        b[--at] = ZERO + rest - q * 10;
-        rest = q;
-      }
-      return;
-    }
-    let rest = n;
+    let rest = n | 0;
     for (let i = 0; i < count; i++) {
-      const q = Math.floor(rest / 10);
-      b[--at] = ZERO + (rest - q * 10);
+      const q = (rest / 10) | 0;
+      b[--at] = ZERO + rest - q * 10;
       rest = q;
     }
   }

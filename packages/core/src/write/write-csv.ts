@@ -34,6 +34,9 @@ const OPTIONAL_COLUMNS: ReadonlyArray<readonly [FixColumnName, string]> = [
   ['surfaceHeadingDeg', 'surface_heading_deg'],
 ];
 
+/** Logged values rarely carry more than three decimals (a guess that speeds the digits up, never changes them). */
+const LIKELY_DECIMALS = 3;
+
 /** Quotes a field per RFC 4180 §2 when it holds the separator, a quote, CR or LF. */
 function quote(field: string, separator: string): string {
   if (field.includes(separator) || /["\r\n]/.test(field)) return `"${field.replace(/"/g, '""')}"`;
@@ -112,7 +115,7 @@ export function writeCsv(input: WriteInput, options: WriteCsvOptions = {}): stri
         }
         for (const values of optional) {
           out.char(sepCode);
-          out.shortest(values[i] as number);
+          out.shortest(values[i] as number, LIKELY_DECIMALS);
         }
         out.char(13);
         out.char(10);
