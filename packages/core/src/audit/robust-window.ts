@@ -181,14 +181,19 @@ export function medianOfEight(
 export function localMedian(values: Float64Array, i: number, halfWidth: number): number {
   const from = Math.max(0, i - halfWidth);
   const to = Math.min(values.length - 1, i + halfWidth);
-  const picked: number[] = [];
+  if (localScratch.length < to - from + 1) localScratch = new Float64Array(to - from + 1);
+  let count = 0;
   for (let j = from; j <= to; j++) {
     if (j === i) continue;
     const v = values[j] as number;
-    if (!Number.isNaN(v)) picked.push(v);
+    if (!Number.isNaN(v)) localScratch[count++] = v;
   }
-  if (picked.length === 0) return Number.NaN;
-  picked.sort((a, b) => a - b);
-  const m = picked.length >> 1;
-  return picked.length % 2 === 1 ? (picked[m] as number) : ((picked[m - 1] as number) + (picked[m] as number)) / 2;
+  if (count === 0) return Number.NaN;
+  // A typed sort (numeric, in place, no comparator calls) of a reused scratch: checks call this for
+  // many fixes of a noisy log.
+  const picked = localScratch.subarray(0, count).sort();
+  const m = count >> 1;
+  return count % 2 === 1 ? (picked[m] as number) : ((picked[m - 1] as number) + (picked[m] as number)) / 2;
 }
+
+let localScratch = new Float64Array(64);
