@@ -5,11 +5,20 @@
 // converts the files it can read to GeoJSON as a reference point.
 //
 // The season spans three sites, each logging projected easting/northing in its own CRS and local times
-// in its own zone, as a real season would; one --input-crs cannot serve all three. So the season is run
-// the way a data manager would: one command per site folder with that site's --input-crs and --tz (taken
-// from the simulator's truth files), and the figures are the sum (wall) and the largest (peak RSS).
+// in its own zone, as a real season would; one --input-crs cannot serve all three. So the bench writes
+// the config file a data manager would keep for the season (each site folder's zone and CRS, taken
+// from the simulator's truth files) and runs each verb once over the whole season with it.
 import { spawn } from 'node:child_process';
-import { existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, statSync } from 'node:fs';
+import {
+  existsSync,
+  mkdirSync,
+  mkdtempSync,
+  readdirSync,
+  readFileSync,
+  rmSync,
+  statSync,
+  writeFileSync,
+} from 'node:fs';
 import { availableParallelism, loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 
@@ -97,7 +106,7 @@ async function ensureSeason(): Promise<string | undefined> {
 
 interface VerbRun {
   label: string;
-  args: (site: Site, out: string) => string[];
+  args: (out: string) => string[];
   /** Fixes the run handled, from its --json output. */
   fixes: (json: unknown) => number;
 }
@@ -105,26 +114,17 @@ interface VerbRun {
 const VERBS: VerbRun[] = [
   {
     label: 'convert --to geojson',
-    args: (site, out) => ['convert', site.folder, '--to', 'geojson', '--out', join(out, 'geojson', site.id)],
+    args: (out) => ['convert', SEASON_DIR, '--to', 'geojson', '--out', join(out, 'geojson')],
     fixes: (json) => (json as Array<{ fixCount: number }>).reduce((n, r) => n + r.fixCount, 0),
   },
   {
     label: 'convert --to csv --crs utm',
-    args: (site, out) => ['convert', site.folder, '--to', 'csv', '--crs', 'utm', '--out', join(out, 'csv', site.id)],
+    args: (out) => ['convert', SEASON_DIR, '--to', 'csv', '--crs', 'utm', '--out', join(out, 'csv')],
     fixes: (json) => (json as Array<{ fixCount: number }>).reduce((n, r) => n + r.fixCount, 0),
   },
   {
     label: 'audit --report json',
-    args: (site, out) => [
-      'audit',
-      site.folder,
-      '--report',
-      'json',
-      '--fail-on',
-      'never',
-      '--out',
-      join(out, 'audit', site.id),
-    ],
+    args: (out) => ['audit', SEASON_DIR, '--report', 'json', '--fail-on', 'never', '--out', join(out, 'audit')],
     fixes: (json) =>
       (json as Array<{ dives: Array<{ fixCount: number }> }>).reduce(
         (n, r) => n + r.dives.reduce((m, d) => m + d.fixCount, 0),
@@ -133,34 +133,29 @@ const VERBS: VerbRun[] = [
   },
 ];
 
-/** One verb over every site, as the data manager would run it; figures summed (wall) or maximal (RSS). */
-async function runVerb(verb: VerbRun, sites: Site[], out: string): Promise<string> {
-  let wallS = 0;
-  let cpuS = 0;
-  let peakMb = 0;
-  let fixes = 0;
-  let failed = 0;
-  let files = 0;
-  const exits: number[] = [];
+/** The season's config file: each site folder's time zone and CRS (absolute folder paths). */
+function writeSeasonConfig(sites: Site[], out: string): string {
+  const folders = Object.fromEntries(sites.map((s) => [s.folder, { tz: s.timeZone, inputCrs: s.crs }]));
+  const path = join(out, 'leadline.config.json');
+  writeFileSync(path, `${JSON.stringify({ folders }, null, 2)}\n`);
+  return path;
+}
+
+/** One verb over the whole season in one command, with the season's config file. */
+async function runVerb(verb: VerbRun, config: string, out: string): Promise<string> {
   const loadBefore = load();
-  for (const site of sites) {
-    const args = [...verb.args(site, out), '--input-crs', site.crs, '--tz', site.timeZone, '--json', '--force'];
-    const run = await measure(process.execPath, [BINARY, ...args]);
-    wallS += run.wallS;
-    cpuS += run.cpuS ?? Number.NaN;
-    peakMb = Math.max(peakMb, run.peakMb ?? 0);
-    exits.push(run.code);
-    try {
-      const json = JSON.parse(run.stdout) as Array<{ ok: boolean }>;
-      fixes += verb.fixes(json);
-      files += json.length;
-      failed += json.filter((r) => !r.ok).length;
-    } catch {
-      return `${verb.label}: exit ${run.code}, no JSON report: ${run.stderr.trim().split('\n').slice(0, 3).join(' | ')}`;
-    }
+  const args = [...verb.args(out), '--config', config, '--json', '--force'];
+  const run = await measure(process.execPath, [BINARY, ...args]);
+  let json: Array<{ ok: boolean }>;
+  try {
+    json = JSON.parse(run.stdout) as Array<{ ok: boolean }>;
+  } catch {
+    return `${verb.label}: exit ${run.code}, no JSON report: ${run.stderr.trim().split('\n').slice(0, 3).join(' | ')}`;
   }
-  const exit = exits.every((c) => c === exits[0]) ? `exit ${exits[0]}` : `exits ${exits.join('/')}`;
-  return `${verb.label}: ${exit}, ${files} files (${failed} not read), ${wallS.toFixed(1)} s wall, ${cpuS.toFixed(1)} s CPU, ${Math.round(fixes / wallS).toLocaleString('en')} fixes/s wall, ${Math.round(fixes / cpuS).toLocaleString('en')} per CPU second (${(fixes / 1e6).toFixed(2)} M fixes), peak RSS ${peakMb.toFixed(0)} MB (${loadBefore} before, ${load()} after)`;
+  const fixes = verb.fixes(json);
+  const failed = json.filter((r) => !r.ok).length;
+  const cpuS = run.cpuS ?? Number.NaN;
+  return `${verb.label}: exit ${run.code}, ${json.length} files (${failed} not read), ${run.wallS.toFixed(1)} s wall, ${cpuS.toFixed(1)} s CPU, ${Math.round(fixes / run.wallS).toLocaleString('en')} fixes/s wall, ${Math.round(fixes / cpuS).toLocaleString('en')} per CPU second (${(fixes / 1e6).toFixed(2)} M fixes), peak RSS ${run.peakMb?.toFixed(0) ?? '?'} MB (${loadBefore} before, ${load()} after)`;
 }
 
 /** The files ogr2ogr can read as they are: GPX, and CSV whose positions are plain decimal-degree columns. */
@@ -259,7 +254,8 @@ export async function runSeasonBench(): Promise<string> {
     `${sites.map((s) => `${s.id} (${s.crs}, ${s.timeZone})`).join(', ')}; ${availableParallelism()} cores; target <= 15 s wall, <= 512 MB peak RSS per verb`,
   ];
   try {
-    for (const verb of VERBS) for (let r = 0; r < runs; r++) lines.push(await runVerb(verb, sites, out));
+    const config = writeSeasonConfig(sites, out);
+    for (const verb of VERBS) for (let r = 0; r < runs; r++) lines.push(await runVerb(verb, config, out));
     lines.push(await runGdalReference(SEASON_DIR, out));
   } finally {
     rmSync(out, { recursive: true, force: true });

@@ -17,7 +17,7 @@ import {
 import { InvalidArgumentError, Option } from 'commander';
 import { EXIT_FINDINGS, EXIT_IO, EXIT_OK, EXIT_USAGE } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
-import { buildReadOptions } from '../support/build-read-options.js';
+import { buildReadSettings } from '../support/build-read-options.js';
 import { addCommonOptions, type CommonOptions, loadConfig, type WrittenOutput } from '../support/index.js';
 import { NOT_PREPARED, prepareRun, printReports, runFiles } from '../support/run-files.js';
 import { UsageProblem } from '../support/usage-problem.js';
@@ -154,18 +154,19 @@ export async function runAudit(
   cwd: string = process.cwd(),
 ): Promise<number> {
   const prepared = await prepareRun('audit', io, async () => {
-    const { config } = await loadConfig(options.config, cwd);
-    const readOptions = buildReadOptions(options, config);
+    const loaded = await loadConfig(options.config, cwd);
+    const { config } = loaded;
+    const read = buildReadSettings(options, loaded);
     const userProfiles = parseUserProfiles(config.profiles ?? {});
     const profile = resolveAuditProfile(options.profile ?? config.defaults?.profile ?? 'inspection-rov', userProfiles);
     const setup: AuditSetup = options.setup === undefined ? {} : await loadAuditSetup(options.setup, cwd);
     if (options.gap !== undefined && !options.split) throw new UsageProblem('--gap applies with --split only');
     if (options.report !== undefined && options.out === undefined)
       throw new UsageProblem('--report writes files: give --out <dir> as well');
-    return { readOptions, profile, setup };
+    return { read, profile, setup };
   });
   if (prepared === NOT_PREPARED) return EXIT_USAGE;
-  const { readOptions, profile, setup } = prepared;
+  const { read, profile, setup } = prepared;
 
   const formats: ReportFormat[] = options.out === undefined ? [] : [options.report ?? 'json'];
   const split = options.split
@@ -187,7 +188,7 @@ export async function runAudit(
     work: async (input, { run, index }) => {
       const task: Omit<AuditTaskPayload, 'bytes'> = {
         displayName: input.displayName,
-        readOptions,
+        readOptions: read.forInput(input.path),
         profile,
         setup,
         formats,
@@ -252,7 +253,7 @@ export async function runAudit(
       failOn: options.failOn,
       report: format,
       split: split ?? null,
-      read: readOptions,
+      read: read.manifest,
     });
   }
 

@@ -4,7 +4,7 @@ import { type AuditProfile, parseUserProfiles, resolveAuditProfile, resolveCrs }
 import { InvalidArgumentError as CommanderInvalidArgumentError, Option } from 'commander';
 import { EXIT_IO, EXIT_USAGE } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
-import { buildReadOptions } from '../support/build-read-options.js';
+import { buildReadSettings } from '../support/build-read-options.js';
 import { addCommonOptions, type CommonOptions, loadConfig, type WrittenOutput } from '../support/index.js';
 import { loadResolveSetup } from '../support/load-resolve-setup.js';
 import { NOT_PREPARED, prepareRun, printReports, runFiles } from '../support/run-files.js';
@@ -117,8 +117,9 @@ export async function runConvert(
   cwd: string = process.cwd(),
 ): Promise<number> {
   const prepared = await prepareRun('convert', io, async () => {
-    const { config } = await loadConfig(options.config, cwd);
-    const readOptions = buildReadOptions(options, config);
+    const loaded = await loadConfig(options.config, cwd);
+    const { config } = loaded;
+    const read = buildReadSettings(options, loaded);
     const crs = options.crs ?? (options.to === 'csv' ? config.defaults?.crs : undefined);
     if (crs !== undefined && options.to !== 'csv')
       throw new UsageProblem('--crs applies to --to csv only (GPX, GeoJSON and KML are always WGS 84)');
@@ -141,10 +142,10 @@ export async function runConvert(
     } else if (options.profile !== undefined) throw new UsageProblem('--profile applies with --clean only');
     const setup: unknown =
       options.setup === undefined ? undefined : await loadResolveSetup(options.setup, config.setups ?? {}, cwd);
-    return { readOptions, crs, grids, cleanProfile, setup };
+    return { read, crs, grids, cleanProfile, setup };
   });
   if (prepared === NOT_PREPARED) return EXIT_USAGE;
-  const { readOptions, crs, grids, cleanProfile, setup } = prepared;
+  const { read, crs, grids, cleanProfile, setup } = prepared;
 
   const nowMs = Date.now();
   let stdoutText: string | undefined;
@@ -165,7 +166,7 @@ export async function runConvert(
     work: async (input, { run }) => {
       const task: Omit<ConvertTaskPayload, 'bytes'> = {
         displayName: input.displayName,
-        readOptions,
+        readOptions: read.forInput(input.path),
         to: options.to,
         nowMs,
         ...(options.gap === undefined ? {} : { gapMs: options.gap * 1000 }),
@@ -228,7 +229,7 @@ export async function runConvert(
       gapS: options.gap ?? null,
       grids: Object.keys(grids),
       setup: setup ?? null,
-      read: readOptions,
+      read: read.manifest,
     });
 
   if (out === undefined) {

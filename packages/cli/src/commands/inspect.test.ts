@@ -1,3 +1,5 @@
+import { copyFileSync, mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { EXIT_IO, EXIT_OK, EXIT_USAGE } from '../exit-codes.js';
@@ -76,6 +78,30 @@ describe('runInspect', () => {
     const [report] = JSON.parse(io.out()) as InspectFileReport[];
     // 01:59 CEST (UTC+2) is 23:59 UTC the day before; 03:00 CET (UTC+1) is 02:00 UTC (tz database)
     expect([report?.start, report?.end]).toEqual(['2026-10-24T23:59:00.000Z', '2026-10-25T02:00:00.000Z']);
+  });
+
+  it('reads a season from two sites in one run with each folder’s zone and CRS from the config file', async () => {
+    const season = mkdtempSync(join(tmpdir(), 'leadline-sites-'));
+    try {
+      mkdirSync(join(season, 'oslo'));
+      mkdirSync(join(season, 'utm32'));
+      copyFileSync(join(IN, 'csv-local-time-dst.csv'), join(season, 'oslo', 'dive.csv'));
+      copyFileSync(join(IN, 'csv-projected-utm.csv'), join(season, 'utm32', 'dive.csv'));
+      const folders = { oslo: { tz: 'Europe/Oslo' }, utm32: { inputCrs: 'EPSG:25832' } };
+      writeFileSync(join(season, 'leadline.config.json'), JSON.stringify({ folders }));
+      const io = capture();
+      // The config file inside the season folder is not taken for a log.
+      expect(await runInspect(['.'], { ...options, jobs: 2 }, io, season)).toBe(EXIT_OK);
+      const reports = JSON.parse(io.out()) as InspectFileReport[];
+      expect(reports.map((r) => [r.file, r.tracks[0]?.timeZone, r.tracks[0]?.inputCrs])).toEqual([
+        [join('oslo', 'dive.csv'), 'Europe/Oslo', null],
+        [join('utm32', 'dive.csv'), 'UTC', 'EPSG:25832'],
+      ]);
+      // Same instants as with --tz Europe/Oslo above (tz database).
+      expect(reports[0]?.start).toBe('2026-10-24T23:59:00.000Z');
+    } finally {
+      rmSync(season, { recursive: true, force: true });
+    }
   });
 });
 

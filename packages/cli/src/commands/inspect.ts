@@ -1,6 +1,6 @@
 import { EXIT_IO, EXIT_USAGE } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
-import { buildReadOptions } from '../support/build-read-options.js';
+import { buildReadSettings } from '../support/build-read-options.js';
 import { addCommonOptions, type CommonOptions, loadConfig } from '../support/index.js';
 import { NOT_PREPARED, prepareRun, printReports, runFiles } from '../support/run-files.js';
 import type { RegisterCommand } from './index.js';
@@ -57,12 +57,11 @@ export async function runInspect(
   io: CliIo,
   cwd: string = process.cwd(),
 ): Promise<number> {
-  const prepared = await prepareRun('inspect', io, async () => {
-    const { config } = await loadConfig(options.config, cwd);
-    return buildReadOptions(options, config);
-  });
+  const prepared = await prepareRun('inspect', io, async () =>
+    buildReadSettings(options, await loadConfig(options.config, cwd)),
+  );
   if (prepared === NOT_PREPARED) return EXIT_USAGE;
-  const readOptions = prepared;
+  const read = prepared;
   let usageError: string | undefined;
   const run = await runFiles<InspectFileReport>({
     verb: 'inspect',
@@ -71,7 +70,8 @@ export async function runInspect(
     io,
     cwd,
     writesOutputs: false,
-    work: async (input, { run }) => (await run('inspectFile', { displayName: input.displayName, readOptions })).result,
+    work: async (input, { run }) =>
+      (await run('inspectFile', { displayName: input.displayName, readOptions: read.forInput(input.path) })).result,
     failed: (input, message, error) => {
       // a column map naming no column is the caller's mistake, said once
       if (error instanceof Error && /names no column/.test(error.message)) usageError ??= error.message;

@@ -2,7 +2,7 @@ import { parseUserProfiles, type ResolveReport, resolveAuditProfile, resolveCrs 
 import { Option } from 'commander';
 import { EXIT_IO, EXIT_USAGE } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
-import { buildReadOptions } from '../support/build-read-options.js';
+import { buildReadSettings } from '../support/build-read-options.js';
 import { addCommonOptions, type CommonOptions, loadConfig, type WrittenOutput } from '../support/index.js';
 import { loadResolveSetup } from '../support/load-resolve-setup.js';
 import { NOT_PREPARED, prepareRun, printReports, runFiles } from '../support/run-files.js';
@@ -89,8 +89,9 @@ export async function runResolve(
   cwd: string = process.cwd(),
 ): Promise<number> {
   const prepared = await prepareRun('resolve', io, async () => {
-    const { config } = await loadConfig(options.config, cwd);
-    const readOptions = buildReadOptions(options, config);
+    const loaded = await loadConfig(options.config, cwd);
+    const { config } = loaded;
+    const read = buildReadSettings(options, loaded);
     const setupText = options.setup ?? config.defaults?.setup;
     if (setupText === undefined)
       throw new UsageProblem('resolve needs --setup <file|name|JSON> (or defaults.setup in the config file)');
@@ -103,10 +104,10 @@ export async function runResolve(
     if (options.crs !== undefined && options.crs.toLowerCase() !== 'utm') resolveCrs(options.crs);
     if (options.crs !== undefined && options.to !== 'csv')
       throw new UsageProblem('--crs applies to --to csv only (GPX, GeoJSON and KML are always WGS 84)');
-    return { readOptions, setup, auditProfile };
+    return { read, setup, auditProfile };
   });
   if (prepared === NOT_PREPARED) return EXIT_USAGE;
-  const { readOptions, setup, auditProfile } = prepared;
+  const { read, setup, auditProfile } = prepared;
 
   const run = await runFiles<ResolveFileReport>({
     verb: 'resolve',
@@ -120,7 +121,7 @@ export async function runResolve(
         displayName: input.displayName,
         setup,
         auditProfile,
-        readOptions,
+        readOptions: read.forInput(input.path),
         to: options.to,
         ...(options.crs === undefined ? {} : { crs: options.crs }),
         withFiles: out !== undefined,
@@ -160,7 +161,7 @@ export async function runResolve(
       profile: auditProfile.name,
       to: options.to,
       crs: options.crs ?? null,
-      read: readOptions,
+      read: read.manifest,
     });
 
   printReports(io, options, reports, formatTable);

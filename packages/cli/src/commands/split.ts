@@ -2,7 +2,7 @@ import { parseUserProfiles, resolveAuditProfile, type SplitOptions } from '@lead
 import { InvalidArgumentError, Option } from 'commander';
 import { EXIT_IO, EXIT_USAGE } from '../exit-codes.js';
 import type { CliIo } from '../io.js';
-import { buildReadOptions } from '../support/build-read-options.js';
+import { buildReadSettings } from '../support/build-read-options.js';
 import { addCommonOptions, type CommonOptions, loadConfig, type WrittenOutput } from '../support/index.js';
 import { NOT_PREPARED, prepareRun, printReports, runFiles } from '../support/run-files.js';
 import type { RegisterCommand } from './index.js';
@@ -83,8 +83,9 @@ export async function runSplit(
   cwd: string = process.cwd(),
 ): Promise<number> {
   const prepared = await prepareRun('split', io, async () => {
-    const { config } = await loadConfig(options.config, cwd);
-    const readOptions = buildReadOptions(options, config);
+    const loaded = await loadConfig(options.config, cwd);
+    const { config } = loaded;
+    const read = buildReadSettings(options, loaded);
     const profile = resolveAuditProfile(
       options.profile ?? config.defaults?.profile ?? 'inspection-rov',
       parseUserProfiles(config.profiles ?? {}),
@@ -94,10 +95,10 @@ export async function runSplit(
       surfaceDepthM: options.surfaceDepth ?? profile.surfaceDepthM,
       surfaceIntervalS: options.surfaceTime ?? profile.surfaceIntervalS,
     };
-    return { readOptions, split };
+    return { read, split };
   });
   if (prepared === NOT_PREPARED) return EXIT_USAGE;
-  const { readOptions, split } = prepared;
+  const { read, split } = prepared;
   const run = await runFiles<SplitFileReport>({
     verb: 'split',
     args,
@@ -108,7 +109,7 @@ export async function runSplit(
     work: async (input, { run, out }) => {
       const task: Omit<SplitTaskPayload, 'bytes'> = {
         displayName: input.displayName,
-        readOptions,
+        readOptions: read.forInput(input.path),
         split,
         to: options.to,
         withFiles: out !== undefined,
@@ -136,7 +137,7 @@ export async function runSplit(
       exitCode = EXIT_IO;
       io.stderr(`${report.file}: ${report.error ?? 'could not be split'}\n`);
     }
-  if (out !== undefined) await out.writeManifest('split', { split, to: options.to, read: readOptions });
+  if (out !== undefined) await out.writeManifest('split', { split, to: options.to, read: read.manifest });
   printReports(io, options, reports, formatTable);
   return exitCode;
 }

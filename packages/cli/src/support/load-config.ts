@@ -21,6 +21,20 @@ export const ConfigSchema = z.strictObject({
     })
     .optional(),
   columns: z.record(z.string(), z.record(z.string(), z.string())).optional(),
+  /**
+   * Read settings for the logs under a folder (relative to this file), e.g. one site's time zone and
+   * CRS, so one command can take a season from several sites; the command line's own flags win.
+   */
+  folders: z
+    .record(
+      z.string(),
+      z.strictObject({
+        tz: z.string().optional(),
+        inputCrs: z.string().optional(),
+        columns: z.union([z.string(), z.record(z.string(), z.string())]).optional(),
+      }),
+    )
+    .optional(),
   profiles: z.record(z.string(), z.record(z.string(), z.unknown())).optional(),
   setups: z.record(z.string(), z.record(z.string(), z.unknown())).optional(),
 });

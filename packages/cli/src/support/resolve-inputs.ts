@@ -20,9 +20,9 @@ export interface ResolvedInputs {
 }
 
 const SKIPPED_FOLDERS = ['**/node_modules/**', '**/.git/**', '**/.*/**'];
-// Inside a folder, files Leadline itself writes beside logs are not logs: run manifests and the
-// simulator's truth files. Named explicitly, they are still read.
-const SKIPPED_IN_FOLDERS = [...SKIPPED_FOLDERS, '**/leadline-run.json', '**/*.truth.json'];
+// Inside a folder, Leadline's own files beside logs are not logs: run manifests, the simulator's
+// truth files and configuration files. Named explicitly, they are still read.
+const SKIPPED_IN_FOLDERS = [...SKIPPED_FOLDERS, '**/leadline-run.json', '**/*.truth.json', '**/leadline.config.json'];
 
 /**
  * Expands files, folders (recursed, hidden folders skipped) and globs into a sorted, de-duplicated

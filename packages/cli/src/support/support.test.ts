@@ -3,7 +3,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { LEADLINE_VERSION } from '@leadline/core';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import { buildReadOptions } from './build-read-options.js';
+import { buildReadOptions, buildReadSettings } from './build-read-options.js';
 import { parseColumnMap } from './common-options.js';
 import { loadConfig } from './load-config.js';
 import { MANIFEST_FILE, OutputFolder, sha256Hex } from './output-folder.js';
@@ -118,6 +118,46 @@ describe('buildReadOptions', () => {
   it('names the maps there are when a name is unknown, and refuses an unknown time zone', () => {
     expect(() => buildReadOptions({ columns: 'quay' }, config)).toThrow(/no column map by that name.*pen-logger/);
     expect(() => buildReadOptions({ tz: 'Europe/Osl' }, config)).toThrow(/unknown time zone "Europe\/Osl"/);
+  });
+});
+
+describe('buildReadSettings', () => {
+  const file = join('/seasons', '2026', 'leadline.config.json');
+  const config = {
+    defaults: { tz: 'UTC' },
+    columns: { 'pen-logger': { latDeg: 'B', lonDeg: 'L' } },
+    folders: {
+      hobart: { tz: 'Australia/Hobart', inputCrs: 'EPSG:7855' },
+      'hobart/pen-trials': { columns: 'pen-logger' },
+      oslo: { tz: 'Europe/Oslo' },
+    },
+  };
+
+  it('gives each input the settings of the innermost folder holding it, over the defaults', () => {
+    const read = buildReadSettings({}, { config, file });
+    expect(read.forInput(join('/seasons', '2026', 'hobart', 'day1', 'dive.csv'))).toEqual({
+      timeZone: 'Australia/Hobart',
+      inputCrs: 'EPSG:7855',
+    });
+    expect(read.forInput(join('/seasons', '2026', 'hobart', 'pen-trials', 'a.csv'))).toEqual({
+      columns: { latDeg: 'B', lonDeg: 'L' },
+      timeZone: 'UTC',
+    });
+    expect(read.forInput(join('/seasons', '2026', 'oslo-old', 'a.csv'))).toEqual({ timeZone: 'UTC' });
+    expect(read.forInput('-')).toEqual({ timeZone: 'UTC' });
+    expect(Object.keys(read.manifest.folders ?? {}).sort()).toEqual(['hobart', 'hobart/pen-trials', 'oslo']);
+  });
+
+  it('lets the command line win over a folder, and names the folder of a bad setting', () => {
+    const read = buildReadSettings({ tz: 'Europe/London' }, { config, file });
+    expect(read.forInput(join('/seasons', '2026', 'hobart', 'dive.csv')).timeZone).toBe('Europe/London');
+    const bad = { folders: { quay: { tz: 'Europe/Osl' } } };
+    expect(() => buildReadSettings({}, { config: bad, file })).toThrow(
+      /folders\.quay in the config file: unknown time zone "Europe\/Osl"/,
+    );
+    expect(() => buildReadSettings({}, { config: { folders: { quay: { inputCrs: 'EPSG:99999999' } } }, file })).toThrow(
+      /folders\.quay/,
+    );
   });
 });
 

@@ -39,7 +39,9 @@ export function createTaskPool(jobs: number): TaskPool {
   }
   const pool = new Piscina({
     filename: WORKER_ENTRY,
-    minThreads: 1,
+    // Every thread starts at once (each loads the worker bundle), rather than the second only
+    // when a task waits for it.
+    minThreads: jobs,
     maxThreads: jobs,
     idleTimeout: 1000,
     resourceLimits: { maxYoungGenerationSizeMb: YOUNG_GENERATION_MB },
