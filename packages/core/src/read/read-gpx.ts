@@ -1,6 +1,6 @@
 import { SaxesParser, type SaxesTagPlain } from 'saxes';
 import type { Rejection } from '../model/rejection.js';
-import type { DepthSignDecision, Fix, TrackRole, Waypoint } from '../model/track.js';
+import { type DepthSignDecision, FIX_COLUMN_NAMES, type TrackRole, type Waypoint } from '../model/track.js';
 import { normaliseAzimuthDeg } from '../model/units.js';
 import { collectReadEvents } from './collect-read-events.js';
 import { decodeLogText } from './decode-log-text.js';
@@ -9,7 +9,7 @@ import { parseCoordinate } from './parse-coordinate.js';
 import { LogTimeParser } from './parse-log-time.js';
 import type { LogTextInput } from './read-csv.js';
 import { refusedLog } from './read-csv.js';
-import type { ReadEvent } from './read-event.js';
+import type { FixBatch, ReadEvent } from './read-event.js';
 import { findForbiddenXml } from './refuse-forbidden-xml.js';
 import { scanGpxFast } from './scan-gpx-fast.js';
 
@@ -93,6 +93,7 @@ export function* readGpxEvents(input: LogTextInput, options: ReadOptions = {}): 
   if (whole !== undefined) {
     const fast = createGpxHandlers(input.fileName, options);
     if (scanGpxFast(whole, fast)) {
+      fast.flushFixes();
       yield* fast.queue;
       yield* finishGpx(fast);
       return;
@@ -120,12 +121,14 @@ export function* readGpxEvents(input: LogTextInput, options: ReadOptions = {}): 
   for (const chunk of input.chunks) {
     for (let at = 0; at < chunk.length && !state.failed; at += FEED_CHARS) {
       parser.write(chunk.slice(at, at + FEED_CHARS));
+      state.flushFixes();
       yield* queue;
       queue.length = 0;
     }
     if (state.failed) break;
   }
   if (!state.failed) parser.close();
+  state.flushFixes();
   yield* queue;
   queue.length = 0;
   yield* finishGpx(state);
@@ -147,6 +150,26 @@ interface GpxHandlers {
   open: (name: string, attributes: Record<string, string>, line: number, column: number) => void;
   text: (t: string) => void;
   close: (name: string) => void;
+  /** Puts the fixes gathered so far into `queue` (before it is handed on). */
+  flushFixes: () => void;
+}
+
+/** First and largest size of a batch of GPX fixes. */
+const GPX_BATCH_FIRST = 256;
+const GPX_BATCH_MAX = 4096;
+
+function newGpxBatch(capacity: number): FixBatch {
+  const columns: FixBatch['columns'] = {};
+  for (const name of FIX_COLUMN_NAMES) columns[name] = new Float64Array(capacity);
+  return { count: 0, lines: new Uint32Array(capacity), columns };
+}
+
+function growGpxBatch(batch: FixBatch, capacity: number): FixBatch {
+  const grown = newGpxBatch(capacity);
+  grown.count = batch.count;
+  grown.lines.set(batch.lines);
+  for (const name of FIX_COLUMN_NAMES) (grown.columns[name] as Float64Array).set(batch.columns[name] as Float64Array);
+  return grown;
 }
 
 /**
@@ -164,13 +187,35 @@ function createGpxHandlers(file: string, options: ReadOptions): GpxHandlers {
   let waypointCount = 0;
   const state = { queue, rowCount: 0, version: '', failed: false, trackStats } as GpxHandlers;
   const reject = (line: number, code: Rejection['code'], expected: string, found: string, column?: number) => {
-    queue.push({
+    pushEvent({
       kind: 'rejection',
       rejection:
         column === undefined ? { file, line, code, expected, found } : { file, line, column, code, expected, found },
     });
   };
   state.reject = reject;
+  // Fixes gather in a batch, column by column; any other event first hands on the batch so far (file
+  // order kept). A batch handed on is never written again: the queue may hold it a while.
+  let batch = newGpxBatch(GPX_BATCH_FIRST);
+  const flushFixes = (): void => {
+    if (batch.count === 0) return;
+    queue.push({ kind: 'fix-batch', batch });
+    batch = newGpxBatch(GPX_BATCH_FIRST);
+  };
+  const pushEvent = (event: ReadEvent): void => {
+    flushFixes();
+    queue.push(event);
+  };
+  /** The row for the next fix, growing the batch (up to `GPX_BATCH_MAX` rows) or handing it on when full. */
+  const reserveFix = (): number => {
+    const capacity = batch.lines.length;
+    if (batch.count === capacity) {
+      if (capacity >= GPX_BATCH_MAX) flushFixes();
+      else batch = growGpxBatch(batch, capacity * 2);
+    }
+    return batch.count;
+  };
+  state.flushFixes = flushFixes;
   const openTrackIfNeeded = () => {
     if (track === undefined || track.opened) return;
     track.opened = true;
@@ -178,7 +223,7 @@ function createGpxHandlers(file: string, options: ReadOptions): GpxHandlers {
     if (options.role === undefined && SURFACE_TRACK.test(label)) track.role = 'surface';
     const event: ReadEvent = { kind: 'track', role: track.role };
     if (track.name !== undefined) event.name = track.name;
-    queue.push(event);
+    pushEvent(event);
   };
   state.open = (name, attributes, line, column) => {
     const local = localName(name);
@@ -204,7 +249,7 @@ function createGpxHandlers(file: string, options: ReadOptions): GpxHandlers {
     }
     if (local === 'trkseg') {
       openTrackIfNeeded();
-      queue.push({ kind: 'segment' });
+      pushEvent({ kind: 'segment' });
       return;
     }
     if (
@@ -256,7 +301,7 @@ function createGpxHandlers(file: string, options: ReadOptions): GpxHandlers {
       if ((parent === 'trk' || parent === 'rte') && local === 'type') track.type = value;
       if (local === 'trk' || local === 'rte') {
         openTrackIfNeeded();
-        queue.push({ kind: 'depth-sign', decision: decideGpxDepthSign(track, trackStats) });
+        pushEvent({ kind: 'depth-sign', decision: decideGpxDepthSign(track, trackStats) });
         track = undefined;
       }
     }
@@ -330,7 +375,7 @@ function createGpxHandlers(file: string, options: ReadOptions): GpxHandlers {
         sourceLine: p.line,
       };
       if (p.desc !== undefined) waypoint.description = p.desc;
-      queue.push({ kind: 'waypoint', waypoint });
+      pushEvent({ kind: 'waypoint', waypoint });
       return;
     }
     if (track !== undefined) {
@@ -340,18 +385,25 @@ function createGpxHandlers(file: string, options: ReadOptions): GpxHandlers {
         if (numbers.ele > 0) track.elePositive++;
       }
     }
-    const fix: Fix = { timeMs, latDeg: lat.deg, lonDeg: lon.deg };
-    if (!Number.isNaN(depthM)) fix.depthM = depthM;
-    if (!Number.isNaN(numbers.heading)) fix.headingDeg = normaliseAzimuthDeg(numbers.heading);
-    if (!Number.isNaN(numbers.speed)) fix.speedMps = numbers.speed;
-    if (!Number.isNaN(numbers.range)) fix.slantRangeM = numbers.range;
-    if (!Number.isNaN(numbers.bearing)) fix.bearingDeg = normaliseAzimuthDeg(numbers.bearing);
-    if (!Number.isNaN(numbers.quality)) fix.quality = numbers.quality;
-    if (!Number.isNaN(numbers.surfaceLat) && Math.abs(numbers.surfaceLat) <= 90) fix.surfaceLatDeg = numbers.surfaceLat;
-    if (!Number.isNaN(numbers.surfaceLon) && Math.abs(numbers.surfaceLon) <= 180)
-      fix.surfaceLonDeg = numbers.surfaceLon;
-    if (!Number.isNaN(numbers.surfaceHeading)) fix.surfaceHeadingDeg = normaliseAzimuthDeg(numbers.surfaceHeading);
-    queue.push({ kind: 'fix', fix, line: p.line });
+    // into the batch's columns, `NaN` for what the point does not have (as a `Fix` without it)
+    const i = reserveFix();
+    const c = batch.columns as Required<FixBatch['columns']>;
+    c.timeMs[i] = timeMs;
+    c.latDeg[i] = lat.deg;
+    c.lonDeg[i] = lon.deg;
+    c.depthM[i] = depthM;
+    c.headingDeg[i] = Number.isNaN(numbers.heading) ? Number.NaN : normaliseAzimuthDeg(numbers.heading);
+    c.speedMps[i] = numbers.speed;
+    c.slantRangeM[i] = numbers.range;
+    c.bearingDeg[i] = Number.isNaN(numbers.bearing) ? Number.NaN : normaliseAzimuthDeg(numbers.bearing);
+    c.quality[i] = numbers.quality;
+    c.surfaceLatDeg[i] = Math.abs(numbers.surfaceLat) <= 90 ? numbers.surfaceLat : Number.NaN;
+    c.surfaceLonDeg[i] = Math.abs(numbers.surfaceLon) <= 180 ? numbers.surfaceLon : Number.NaN;
+    c.surfaceHeadingDeg[i] = Number.isNaN(numbers.surfaceHeading)
+      ? Number.NaN
+      : normaliseAzimuthDeg(numbers.surfaceHeading);
+    batch.lines[i] = p.line;
+    batch.count = i + 1;
   };
   return state;
 }
