@@ -96,6 +96,36 @@ describe('computeBoundingBox', () => {
     expect(computeBoundingBox([1, 2], [3, 4])).toEqual({ west: 3, south: 1, east: 4, north: 2 });
     expect(computeBoundingBox([Number.NaN], [1])).toBeUndefined();
   });
+
+  it('agrees with the largest-gap rule worked out by sorting, for narrow and wide spreads of longitude', () => {
+    // The rule itself (the box is the complement of the largest gap between sorted longitudes),
+    // written plainly here; computeBoundingBox skips the sort when the spread is under 180°.
+    const byGap = (lons: number[]) => {
+      const s = [...lons].sort((a, b) => a - b);
+      let best = { gap: (s[0] as number) + 360 - (s[s.length - 1] as number), west: s[0], east: s[s.length - 1] };
+      for (let i = 1; i < s.length; i++) {
+        const g = (s[i] as number) - (s[i - 1] as number);
+        if (g > best.gap) best = { gap: g, west: s[i], east: s[i - 1] };
+      }
+      return { west: best.west, east: best.east };
+    };
+    let x = 7;
+    const next = () => {
+      x = (x * 1_103_515_245 + 12_345) % 2_147_483_648;
+      return x / 2_147_483_648;
+    };
+    for (let k = 0; k < 200; k++) {
+      const centre = next() * 360 - 180;
+      const spread = [1, 90, 179.9, 180, 200, 359][k % 6] as number;
+      const lons = Array.from({ length: 1 + (k % 13) }, () => {
+        const lon = centre + (next() - 0.5) * spread;
+        return lon >= 180 ? lon - 360 : lon < -180 ? lon + 360 : lon;
+      });
+      const lats = lons.map(() => next() * 10);
+      const box = computeBoundingBox(lats, lons);
+      expect({ west: box?.west, east: box?.east }).toEqual(byGap(lons));
+    }
+  });
 });
 
 describe('computeCentroid', () => {

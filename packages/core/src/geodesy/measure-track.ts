@@ -132,8 +132,7 @@ export function computeBoundingBox(latDeg: ArrayLike<number>, lonDeg: ArrayLike<
   let north = Number.NEGATIVE_INFINITY;
   let least = Number.POSITIVE_INFINITY;
   let most = Number.NEGATIVE_INFINITY;
-  const lons = new Float64Array(n);
-  let m = 0;
+  let unordered = false;
   for (let i = 0; i < n; i++) {
     const lat = latDeg[i] as number;
     const lon = lonDeg[i] as number;
@@ -141,15 +140,23 @@ export function computeBoundingBox(latDeg: ArrayLike<number>, lonDeg: ArrayLike<
     if (lat < south) south = lat;
     if (lat > north) north = lat;
     const x = lon >= -180 && lon < 180 ? lon : ((((lon + 180) % 360) + 360) % 360) - 180;
-    lons[m++] = x;
+    if (Number.isNaN(x)) unordered = true; // an infinite longitude: left to the general way
     // As the sort below orders them: -0 before 0.
     if (x < least || (x === 0 && least === 0 && 1 / x < 0)) least = x;
     if (x > most || (x === 0 && most === 0 && 1 / x > 0)) most = x;
   }
-  if (m === 0) return undefined;
+  if (!(south <= north)) return undefined;
   // Longitudes within less than 180°: the gap round the back is the largest, so the box is
   // simply least to most (no sort needed).
-  if (most - least < 180) return { west: least, south, east: most, north };
+  if (!unordered && most - least < 180) return { west: least, south, east: most, north };
+  const lons = new Float64Array(n);
+  let m = 0;
+  for (let i = 0; i < n; i++) {
+    const lat = latDeg[i] as number;
+    const lon = lonDeg[i] as number;
+    if (Number.isNaN(lat) || Number.isNaN(lon)) continue;
+    lons[m++] = lon >= -180 && lon < 180 ? lon : ((((lon + 180) % 360) + 360) % 360) - 180;
+  }
   const sorted = lons.subarray(0, m).sort();
   // The box is the complement of the largest empty gap between consecutive longitudes (circularly).
   let gap = (sorted[0] as number) + 360 - (sorted[m - 1] as number);

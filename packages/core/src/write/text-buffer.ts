@@ -305,9 +305,8 @@ export class TextBuffer {
       this.#padded(n - high * 1e9, 9);
       return;
     }
-    let count = 1;
+    let count = Math.max(width, 1);
     while (count < 9 && (POWERS_OF_TEN[count] as number) <= n) count++;
-    if (count < width) count = width;
     this.#reserve(count);
     const b = this.#bytes;
     let at = this.#length + count;
