@@ -50,7 +50,7 @@ export async function runFileTask<P extends { bytes: Uint8Array }, R extends { o
   envelope: FileTaskEnvelope<Omit<P, 'bytes'>>,
 ): Promise<FileTaskOutcome<R>> {
   const { source, target } = envelope;
-  const bytes = 'path' in source ? new Uint8Array(readFileSync(source.path)) : source.bytes;
+  const bytes: Uint8Array = 'path' in source ? readFileSync(source.path) : source.bytes;
   const input = { bytes: bytes.byteLength, sha256: sha256Hex(bytes) };
   const result = await work({ ...envelope.task, bytes } as P);
   const written: WrittenOutput[] = [];

@@ -64,9 +64,11 @@ export function outputPathFor(root: string, relativePath: string, extension: str
  */
 export function writeOutputFile(rules: OutputRules, path: string, content: string | Uint8Array): WrittenOutput {
   const absolute = checkOutputPath(rules, path);
+  // Encoded once, then written, measured and hashed as bytes.
+  const bytes = typeof content === 'string' ? Buffer.from(content, 'utf8') : content;
   mkdirSync(dirname(absolute), { recursive: true });
-  writeFileSync(absolute, content);
-  return describeOutput(rules.root, absolute, content);
+  writeFileSync(absolute, bytes);
+  return describeOutput(rules.root, absolute, bytes);
 }
 
 function checkOutputPath(rules: OutputRules, path: string): string {
