@@ -1,3 +1,5 @@
+import { parseDecimal } from './parse-csv-row-fast.js';
+
 /** Which axis a coordinate belongs to; decides the valid hemisphere letters and the range. */
 export type CoordinateAxis = 'lat' | 'lon';
 
@@ -24,6 +26,9 @@ const SEPARATORS = /^[\s°º˚'′’"″”:dDmMsS]*$/;
  * Codes on failure: `unparsable-coordinate`, `non-finite-value`, `latitude-out-of-range`, `longitude-out-of-range`.
  */
 export function parseCoordinate(text: string, axis: CoordinateAxis): ParsedCoordinate {
+  // Fast path: `[+-]digits[.digits]` with nothing around it (what loggers write), the value `Number()` gives.
+  const plainDecimal = parseDecimal(text, 0, text.length);
+  if (!Number.isNaN(plainDecimal)) return checkRange(plainDecimal, axis, 'dd');
   const expectedForm =
     axis === 'lat'
       ? 'a latitude in decimal degrees, degrees-minutes or degrees-minutes-seconds, N/S or a sign'

@@ -193,7 +193,16 @@ export class LogTimeParser {
     const slot = Math.floor(wallMs / 1_800_000);
     if (slot === this.#wallSlot) return this.acceptUtcMs(wallMs - this.#wallSlotOffset * 60_000);
     const before = this.#offsetMinAt(wallMs - 43_200_000);
-    if (before !== this.#offsetMinAt(wallMs + 43_200_000)) return Number.NaN;
+    const after = this.#offsetMinAt(wallMs + 43_200_000);
+    if (before !== after) {
+      // near a change of offset: the candidates of `fromFields`, taken only when there is one
+      const first = wallMs - before * 60_000;
+      const second = wallMs - after * 60_000;
+      const firstFits = this.#offsetMinAt(first) === before;
+      const secondFits = this.#offsetMinAt(second) === after;
+      if (firstFits === secondFits) return Number.NaN; // the hour skipped, or the hour repeated
+      return this.acceptUtcMs(firstFits ? first : second);
+    }
     // both probes give the same offset, so the two candidates of `fromFields` are one
     const utc = wallMs - before * 60_000;
     if (this.#offsetMinAt(utc) !== before) return Number.NaN;

@@ -19,7 +19,7 @@ import { FastCsvRowReader } from './parse-csv-row-fast.js';
 import { LogTimeParser, type ParsedTime } from './parse-log-time.js';
 import { projectRowsToWgs84 } from './project-rows.js';
 import type { ReadEvent } from './read-event.js';
-import { iterateLogLines, type LogLine, LogLineCursor } from './split-log-lines.js';
+import { type LogLine, LogLineCursor, pullLogLines } from './split-log-lines.js';
 
 /** Lines looked at to detect the delimiter, the header and the column mapping. */
 const SAMPLE_LINES = 64;
@@ -57,17 +57,12 @@ export function* readCsvEvents(
 ): Generator<ReadEvent> {
   const file = input.fileName;
   const times = new LogTimeParser(options.timeZone ?? 'UTC');
-  const lines = iterateLogLines(input.chunks, { joinQuoted: true });
+  const pullLine = pullLogLines(input.chunks, { joinQuoted: true });
   // 1. gather a sample (copied: the line cursor is reused)
   const head: LogLine[] = [];
   let contentLines = 0;
   // pull the sample by hand: breaking out of a for-of would close the line generator
-  for (
-    let next = lines.next();
-    !next.done;
-    next = contentLines >= SAMPLE_LINES ? { done: true, value: undefined } : lines.next()
-  ) {
-    const c = next.value;
+  for (let c = pullLine(); c !== undefined; c = contentLines >= SAMPLE_LINES ? undefined : pullLine()) {
     const copy: LogLine =
       c.tooLongChars >= 0 ? { text: '', line: c.line, tooLongChars: c.tooLongChars } : { text: c.text, line: c.line };
     head.push(copy);
@@ -296,8 +291,7 @@ export function* readCsvEvents(
       headCursor.quoteCount = l.text.indexOf('"') < 0 ? 0 : 1;
       return headCursor;
     }
-    const next = lines.next();
-    return next.done ? undefined : next.value;
+    return pullLine();
   };
   for (let c = nextLine(); c !== undefined; c = nextLine()) {
     const line = c.line;

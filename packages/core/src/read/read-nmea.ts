@@ -8,7 +8,7 @@ import { parseDecimal } from './parse-csv-row-fast.js';
 import { EARLIEST_TIME_MS, LATEST_TIME_MS, LogTimeParser } from './parse-log-time.js';
 import { type LogTextInput, refusedLog } from './read-csv.js';
 import type { FixBatch, ReadEvent } from './read-event.js';
-import { iterateLogLines } from './split-log-lines.js';
+import { pullLogLines } from './split-log-lines.js';
 
 const DAY_MS = 86_400_000;
 const HALF_DAY_MS = 43_200_000;
@@ -262,8 +262,11 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
    * The hot path, outside the generator: a GGA or RMC sentence that makes or joins a fix without any
    * finding. Returns false, having changed nothing but `fields`, for everything else (read below).
    */
+  /** The checksum `readFixSentence` computed for the sentence it declined (its fields stay in `fields`). */
+  let scannedChecksum = 0;
   const readFixSentence = (src: string, at: number, to: number, line: number): boolean => {
     const x = fields.scan(src, at + 1, to);
+    scannedChecksum = x;
     const star = fields.star;
     if (star >= 0 && hexByteAt(src, star + 1, to) !== x) return false;
     const addressStart = fields.start(0);
@@ -308,7 +311,10 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
     }
     return false;
   };
-  for (const c of iterateLogLines(input.chunks)) {
+  let zdaDayKey = -1;
+  let zdaDayMs = 0;
+  const pullLine = pullLogLines(input.chunks);
+  for (let c = pullLine(); c !== undefined; c = pullLine()) {
     if (out.length > 0) {
       for (let k = 0; k < out.length; k++) yield out[k] as ReadEvent;
       out.length = 0;
@@ -353,8 +359,9 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
     }
     if (to - at + 2 > NMEA_MAX_SENTENCE) overLength++;
     if (readFixSentence(src, at, to, line)) continue;
-    // one pass finds the fields and the checksum; fields are then read in place, copied only on rare paths
-    const x = fields.scan(src, at + 1, to);
+    // `readFixSentence` found the fields and the checksum in one pass; fields are then read in
+    // place, copied only on rare paths
+    const x = scannedChecksum;
     const star = fields.star;
     if (star >= 0) {
       if (hexByteAt(src, star + 1, to) !== x) {
@@ -516,7 +523,13 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
         // as the general ZDA case below: this sentence's own event comes before the fixes it completes
         yield { kind: 'non-fix-row', line, why: 'ZDA sets the date' };
         flush();
-        const day = Date.UTC(y, m - 1, d);
+        // one date per day of sentences: computed once
+        const key = y * 10_000 + m * 100 + d;
+        if (key !== zdaDayKey) {
+          zdaDayKey = key;
+          zdaDayMs = Date.UTC(y, m - 1, d);
+        }
+        const day = zdaDayMs;
         if (undated.length > 0) {
           for (const u of undated) emitEpoch(u, u.todMs > tod + HALF_DAY_MS ? day - DAY_MS : day);
           undated.length = 0;

@@ -41,6 +41,8 @@ export function scanGpxFast(s: string, handlers: XmlElementHandlers): boolean {
     pos = XML_DECLARATION.lastIndex;
   }
   const stack: string[] = [];
+  /** Where each open element's name starts in `s` (end tags are compared there, in the flat text). */
+  const stackAt: number[] = [];
   let rootSeen = false;
   // line counting (saxes: 1-based, `\r\n` is one line end; a lone `\r` was ruled out above)
   let line = 1;
@@ -58,7 +60,9 @@ export function scanGpxFast(s: string, handlers: XmlElementHandlers): boolean {
       while (isSpace(s.charCodeAt(gt))) gt++;
       if (s.charCodeAt(gt) !== 62 /* > */) return false;
       const name = stack.pop();
-      if (name === undefined || !isAt(s, lt + 2, nameEnd, name)) return false;
+      const openedAt = stackAt.pop();
+      if (name === undefined || openedAt === undefined || !sameName(s, openedAt, lt + 2, nameEnd - lt - 2, name.length))
+        return false;
       if (lt > textStart && !emitText(s, textStart, lt, handlers)) return false;
       handlers.close(name);
       pos = gt + 1;
@@ -113,7 +117,10 @@ export function scanGpxFast(s: string, handlers: XmlElementHandlers): boolean {
     pos = at + 1;
     textStart = pos;
     if (selfClosing) handlers.close(name);
-    else stack.push(name);
+    else {
+      stack.push(name);
+      stackAt.push(lt + 1);
+    }
   }
   if (stack.length > 0 || !rootSeen || !isWhiteSpace(s, pos, n)) return false;
   return true;
@@ -144,10 +151,10 @@ function isPlainAttributeValue(s: string, start: number, end: number): boolean {
   return true;
 }
 
-/** Whether `start` to `end` of `s` is exactly `name`. */
-function isAt(s: string, start: number, end: number, name: string): boolean {
-  if (end - start !== name.length) return false;
-  for (let i = 0; i < name.length; i++) if (s.charCodeAt(start + i) !== name.charCodeAt(i)) return false;
+/** Whether the `length` characters at `at` of `s` are the start tag's name (`nameLength` characters at `openedAt`). */
+function sameName(s: string, openedAt: number, at: number, length: number, nameLength: number): boolean {
+  if (length !== nameLength) return false;
+  for (let i = 0; i < length; i++) if (s.charCodeAt(at + i) !== s.charCodeAt(openedAt + i)) return false;
   return true;
 }
 

@@ -192,6 +192,91 @@ export function* iterateLogLines(
   }
 }
 
+/**
+ * `iterateLogLines` over one whole string, without a generator step per line: `next()` moves
+ * `cursor` to the next line (the same lines, line numbers and too-long reports) and is `false` at
+ * the end. It does not join quoted fields over line breaks; `quoteCount` is the value every line
+ * gets (0 for a text known to hold no `"`, so joining would change nothing; -1 when not counted).
+ */
+export class LogLineScanner {
+  readonly cursor = new LogLineCursor();
+  readonly #text: string;
+  readonly #quoteCount: number;
+  readonly #maxChars: number;
+  #at = 0;
+  #line = 1;
+  // cached positions keep the scan linear when a text has only LF (or only CR) terminators
+  #nextLf = -2;
+  #nextCr = -2;
+
+  constructor(text: string, quoteCount: number, maxChars = MAX_LINE_CHARS) {
+    this.#text = text;
+    this.#quoteCount = quoteCount;
+    this.#maxChars = maxChars;
+  }
+
+  next(): boolean {
+    const s = this.#text;
+    const n = s.length;
+    const i = this.#at;
+    if (i >= n) return false;
+    if (this.#nextLf !== -1 && this.#nextLf < i) this.#nextLf = s.indexOf('\n', i);
+    if (this.#nextCr !== -1 && this.#nextCr < i) this.#nextCr = s.indexOf('\r', i);
+    const lf = this.#nextLf;
+    const cr = this.#nextCr;
+    let end = cr >= 0 && (lf < 0 || cr < lf) ? cr : lf;
+    if (end < 0) {
+      end = n;
+      this.#at = n;
+    } else if (s.charCodeAt(end) === 13) this.#at = end + 1 < n && s.charCodeAt(end + 1) === 10 ? end + 2 : end + 1;
+    else this.#at = end + 1;
+    const c = this.cursor;
+    c.line = this.#line++;
+    const length = end - i;
+    if (length > this.#maxChars) {
+      c.source = '';
+      c.start = 0;
+      c.end = 0;
+      c.tooLongChars = length;
+      c.quoteCount = -1;
+    } else {
+      c.source = s;
+      c.start = i;
+      c.end = end;
+      c.tooLongChars = -1;
+      c.quoteCount = this.#quoteCount;
+    }
+    return true;
+  }
+}
+
+/**
+ * The lines of a text given in chunks as a plain function returning the cursor (`undefined` at the
+ * end): a `LogLineScanner` for one whole string (without `"` when quoted fields are joined), else
+ * `iterateLogLines`.
+ */
+export function pullLogLines(
+  chunks: Iterable<string>,
+  options: { joinQuoted?: boolean } = {},
+): () => LogLineCursor | undefined {
+  const whole = Array.isArray(chunks) && chunks.length === 1 ? (chunks[0] as unknown) : undefined;
+  if (typeof whole === 'string') {
+    if (!options.joinQuoted) {
+      const scanner = new LogLineScanner(whole, -1);
+      return () => (scanner.next() ? scanner.cursor : undefined);
+    }
+    if (whole.indexOf('"') < 0) {
+      const scanner = new LogLineScanner(whole, 0);
+      return () => (scanner.next() ? scanner.cursor : undefined);
+    }
+  }
+  const lines = iterateLogLines(chunks, options);
+  return () => {
+    const next = lines.next();
+    return next.done ? undefined : next.value;
+  };
+}
+
 /** `iterateLogLines` with a fresh `LogLine` per line (the text copied), for consumers that keep lines. */
 export function* splitLogLines(
   chunks: Iterable<string>,
