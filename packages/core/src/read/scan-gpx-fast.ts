@@ -54,15 +54,14 @@ export function scanGpxFast(s: string, handlers: XmlElementHandlers): boolean {
     if (lt < 0) break;
     if (stack.length === 0 ? !isWhiteSpace(s, pos, lt) : !isXmlText(s, pos, lt)) return false;
     if (s.charCodeAt(lt + 1) === 47 /* / */) {
-      const nameEnd = nameEndAt(s, lt + 2);
-      if (nameEnd < 0) return false;
-      let gt = nameEnd;
-      while (isSpace(s.charCodeAt(gt))) gt++;
-      if (s.charCodeAt(gt) !== 62 /* > */) return false;
+      // an end tag must repeat the open element's name: compared in place, then `>` (names hold no
+      // white space or `>`, so this is the whole name)
       const name = stack.pop();
       const openedAt = stackAt.pop();
-      if (name === undefined || openedAt === undefined || !sameName(s, openedAt, lt + 2, nameEnd - lt - 2, name.length))
-        return false;
+      if (name === undefined || openedAt === undefined || !sameName(s, openedAt, lt + 2, name.length)) return false;
+      let gt = lt + 2 + name.length;
+      while (isSpace(s.charCodeAt(gt))) gt++;
+      if (s.charCodeAt(gt) !== 62 /* > */) return false;
       if (lt > textStart && !emitText(s, textStart, lt, handlers)) return false;
       handlers.close(name);
       pos = gt + 1;
@@ -151,9 +150,8 @@ function isPlainAttributeValue(s: string, start: number, end: number): boolean {
   return true;
 }
 
-/** Whether the `length` characters at `at` of `s` are the start tag's name (`nameLength` characters at `openedAt`). */
-function sameName(s: string, openedAt: number, at: number, length: number, nameLength: number): boolean {
-  if (length !== nameLength) return false;
+/** Whether the `length` characters at `at` of `s` are those at `openedAt` (a start tag's name). */
+function sameName(s: string, openedAt: number, at: number, length: number): boolean {
   for (let i = 0; i < length; i++) if (s.charCodeAt(at + i) !== s.charCodeAt(openedAt + i)) return false;
   return true;
 }
