@@ -191,9 +191,9 @@ export type { DiveSummary, SummariseDiveOptions, SummaryPosition } from './summa
 export { summariseDive } from './summarise/summarise-dive.js';
 export { LEADLINE_VERSION } from './version.js';
 export type { WriteCsvOptions } from './write/write-csv.js';
-export { writeCsv } from './write/write-csv.js';
+export { writeCsv, writeCsvBytes } from './write/write-csv.js';
 export type { GeoJsonArea, WriteGeoJsonOptions } from './write/write-geojson.js';
-export { GEOJSON_MEDIA_TYPE, writeGeoJson } from './write/write-geojson.js';
+export { GEOJSON_MEDIA_TYPE, writeGeoJson, writeGeoJsonBytes } from './write/write-geojson.js';
 export type { WriteGpxOptions } from './write/write-gpx.js';
 export { LEADLINE_GPX_NAMESPACE, writeGpx } from './write/write-gpx.js';
 export type { WriteInput } from './write/write-input.js';

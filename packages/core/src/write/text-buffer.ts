@@ -167,6 +167,11 @@ export class TextBuffer {
     this.#length = Math.min(this.#length, byteLength);
   }
 
+  /** The UTF-8 bytes written so far (a copy). */
+  toBytes(): Uint8Array {
+    return this.#bytes.slice(0, this.#length);
+  }
+
   /** The text written so far. */
   toString(): string {
     return decoder.decode(this.#bytes.subarray(0, this.#length));

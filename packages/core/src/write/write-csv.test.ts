@@ -2,7 +2,7 @@ import { parse } from 'csv-parse/sync';
 import { describe, expect, it } from 'vitest';
 import { resolveCrs } from '../crs/resolve-crs.js';
 import { trackOf } from '../geodesy/track-fixture.test-helper.js';
-import { writeCsv } from './write-csv.js';
+import { writeCsv, writeCsvBytes } from './write-csv.js';
 
 describe('writeCsv', () => {
   const track = trackOf([
@@ -35,5 +35,23 @@ describe('writeCsv', () => {
     expect(text.split('\r\n')[1]).toBe('dive-1,vehicle,1,,2026-03-03T04:05:06.007Z,30.27,-97.74,3');
     expect(text.split('\r\n')[2]).toMatch(/,$/); // depth missing: empty, never NaN
     expect(text).not.toMatch(/NaN/);
+  });
+});
+
+describe('writeCsvBytes', () => {
+  it('gives the same text as writeCsv, as UTF-8 bytes (track names in any script, projected columns, gaps)', () => {
+    const track = {
+      ...trackOf([
+        { timeMs: Date.UTC(2026, 5, 1, 9), latDeg: 59.0412, lonDeg: 5.7331, depthM: 41.25, headingDeg: 270 },
+        { timeMs: Date.UTC(2026, 5, 1, 9, 0, 1), latDeg: 59.04121, lonDeg: 5.73311, depthM: Number.NaN },
+        { timeMs: Date.UTC(2026, 5, 1, 9, 5), latDeg: 59.0413, lonDeg: 5.7332, depthM: 42 },
+      ]),
+      name: 'Skarvholmen – ROV «Tjeld»',
+    };
+    const input = { tracks: [track], waypoints: [] };
+    for (const options of [{}, { crs: resolveCrs('EPSG:25832'), gapMs: 60_000 }, { separator: ';' as const }]) {
+      const bytes = writeCsvBytes(input, options);
+      expect(new TextDecoder().decode(bytes)).toBe(writeCsv(input, options));
+    }
   });
 });

@@ -58,6 +58,18 @@ function unitSuffix(unit: string): string {
  * `waypoint`. A value that is missing or cannot be projected is an empty field, never `NaN`.
  */
 export function writeCsv(input: WriteInput, options: WriteCsvOptions = {}): string {
+  return buildCsv(input, options).toString();
+}
+
+/**
+ * `writeCsv`'s text as UTF-8 bytes, built as bytes from the start: for a caller that writes a file,
+ * it saves turning millions of rows into a string and back.
+ */
+export function writeCsvBytes(input: WriteInput, options: WriteCsvOptions = {}): Uint8Array {
+  return buildCsv(input, options).toBytes();
+}
+
+function buildCsv(input: WriteInput, options: WriteCsvOptions): TextBuffer {
   const sep = options.separator ?? ',';
   const degDecimals = options.degreeDecimals ?? 8;
   const projDecimals = options.projectedDecimals ?? 3;
@@ -145,5 +157,5 @@ export function writeCsv(input: WriteInput, options: WriteCsvOptions = {}): stri
       out.text(`${fields.map((f) => quote(f, sep)).join(sep)}\r\n`);
     });
   }
-  return out.toString();
+  return out;
 }

@@ -378,6 +378,27 @@ function joinColumns(columns: Float64Array[], others: number[], length: number):
  * position are left out. Serve it as `application/geo+json`.
  */
 export function writeGeoJson(given: WriteInput, options: WriteGeoJsonOptions = {}): string {
+  const out = buildCompactGeoJson(given, options);
+  if (options.indent === undefined) {
+    out.char(10);
+    return out.toString();
+  }
+  return `${JSON.stringify(JSON.parse(out.toString()), null, options.indent)}\n`;
+}
+
+/**
+ * `writeGeoJson`'s text as UTF-8 bytes, built as bytes from the start (compact output): for a
+ * caller that writes a file, it saves turning millions of numbers into a string and back.
+ */
+export function writeGeoJsonBytes(given: WriteInput, options: WriteGeoJsonOptions = {}): Uint8Array {
+  if (options.indent !== undefined) return TextBuffer.encode(writeGeoJson(given, options));
+  const out = buildCompactGeoJson(given, options);
+  out.char(10);
+  return out.toBytes();
+}
+
+// The FeatureCollection, compact, without the final line end.
+function buildCompactGeoJson(given: WriteInput, options: WriteGeoJsonOptions): TextBuffer {
   const input = options.surfaceFromColumns === false ? given : withSurfaceTracks(given);
   const decimals = options.coordinateDecimals ?? 7;
   // Waypoints and areas (few) as strings; their positions count in the collection's box too.
@@ -439,7 +460,5 @@ export function writeGeoJson(given: WriteInput, options: WriteGeoJsonOptions = {
     out.text(f);
   }
   out.ascii(']}');
-  const compact = out.toString();
-  if (options.indent === undefined) return `${compact}\n`;
-  return `${JSON.stringify(JSON.parse(compact), null, options.indent)}\n`;
+  return out;
 }
