@@ -106,7 +106,7 @@ export function auditFileTask(payload: AuditTaskPayload): AuditTaskResult {
           : format === 'md'
             ? formatDiveReportMarkdown(report)
             : formatDiveReportHtml(report, buildReportPlot(track, audit.flags));
-      files.push({ suffix, extension: `.${format}`, text, dive: k });
+      files.push({ suffix, extension: `.${format}`, content: text, dive: k });
     }
   });
   return { ok: true, readRejections, dives, files, plots };

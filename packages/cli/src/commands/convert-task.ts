@@ -11,8 +11,8 @@ import {
   resolveCrs,
   resolveTrack,
   type Track,
-  writeCsv,
-  writeGeoJson,
+  writeCsvBytes,
+  writeGeoJsonBytes,
   writeGpx,
   writeKml,
 } from '@leadline/core';
@@ -119,20 +119,20 @@ export function convertFileTask(payload: ConvertTaskPayload): ConvertTaskResult 
   const input = { tracks, waypoints: read.waypoints };
   const gap = payload.gapMs === undefined ? {} : { gapMs: payload.gapMs };
   let crs: ConvertCrsReport | null = null;
-  let text: string;
+  let content: string | Uint8Array;
   switch (payload.to) {
     case 'gpx':
-      text = writeGpx(input, { name: payload.displayName, timeMs: payload.nowMs, ...gap });
+      content = writeGpx(input, { name: payload.displayName, timeMs: payload.nowMs, ...gap });
       break;
     case 'geojson':
-      text = writeGeoJson(input, gap);
+      content = writeGeoJsonBytes(input, gap);
       break;
     case 'kml':
-      text = writeKml(input, { name: payload.displayName, ...gap });
+      content = writeKml(input, { name: payload.displayName, ...gap });
       break;
     case 'csv': {
       if (payload.crs === undefined) {
-        text = writeCsv(input, gap);
+        content = writeCsvBytes(input, gap);
         break;
       }
       let code = payload.crs;
@@ -153,7 +153,7 @@ export function convertFileTask(payload: ConvertTaskPayload): ConvertTaskResult 
         utmNote = `${choice.note}; `;
       }
       const resolved = resolveCrs(code, payload.grids === undefined ? {} : { grids: payload.grids });
-      text = writeCsv(input, { crs: resolved, ...gap });
+      content = writeCsvBytes(input, { crs: resolved, ...gap });
       crs = {
         code: resolved.code,
         name: resolved.name,
@@ -172,7 +172,7 @@ export function convertFileTask(payload: ConvertTaskPayload): ConvertTaskResult 
     crs,
     cleaned,
     resolvedTracks,
-    files: [{ suffix: '', extension: `.${payload.to}`, text }],
+    files: [{ suffix: '', extension: `.${payload.to}`, content }],
   };
 }
 

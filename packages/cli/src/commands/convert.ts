@@ -176,7 +176,9 @@ export async function runConvert(
         ...(setup === undefined ? {} : { setup }),
       };
       const { result, written: outputs } = await run('convertFile', task);
-      if (result.ok && options.out === undefined) stdoutText = result.files[0]?.text;
+      const content = result.files[0]?.content;
+      if (result.ok && options.out === undefined && content !== undefined)
+        stdoutText = typeof content === 'string' ? content : new TextDecoder().decode(content);
       return {
         file: input.displayName,
         ok: result.ok,

@@ -82,12 +82,12 @@ export function resolveFileTask(payload: ResolveTaskPayload): ResolveTaskResult 
   const files: ResolveTaskFile[] = [];
   if (payload.withFiles) {
     const tracks: Track[] = [...results.map((r) => r.track), ...surfaces];
-    files.push({ suffix: '.resolved', extension: `.${payload.to}`, text: renderTracks(tracks, payload) });
+    files.push({ suffix: '.resolved', extension: `.${payload.to}`, content: renderTracks(tracks, payload) });
     const detail = results.map((r) => formatResolveResult(r, { fixes: true }));
     files.push({
       suffix: '.resolve',
       extension: '.json',
-      text: `${JSON.stringify({ file: payload.displayName, tracks: detail }, null, 2)}\n`,
+      content: `${JSON.stringify({ file: payload.displayName, tracks: detail }, null, 2)}\n`,
     });
   }
   return { ok: true, readRejections, tracks: results.map((r) => formatResolveResult(r)), files };

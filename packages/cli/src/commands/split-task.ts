@@ -10,6 +10,7 @@ import {
   writeGpx,
   writeKml,
 } from '@leadline/core';
+import type { TaskFile } from '../support/file-task.js';
 
 /** Formats `leadline split --to` writes. */
 export const SPLIT_FORMATS = ['csv', 'gpx', 'geojson', 'kml'] as const;
@@ -47,7 +48,7 @@ export interface SplitTaskResult {
   fixCount: number;
   dives: SplitSpanReport[];
   surfaceIntervals: SplitSpanReport[];
-  files: Array<{ suffix: string; extension: string; text: string }>;
+  files: TaskFile[];
 }
 
 const iso = (ms: number) => (Number.isFinite(ms) ? new Date(ms).toISOString() : null);
@@ -103,7 +104,7 @@ export function splitFileTask(payload: SplitTaskPayload): SplitTaskResult {
               ? `.${track.id}.dive-${String(d.number).padStart(2, '0')}`
               : `.dive-${String(d.number).padStart(2, '0')}`,
           extension: `.${payload.to}`,
-          text: render(d.track, payload.to),
+          content: render(d.track, payload.to),
         });
     }
     for (const s of surfaceIntervals)

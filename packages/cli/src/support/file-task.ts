@@ -15,7 +15,8 @@ export type TaskSource = { path: string } | { bytes: Uint8Array };
 export interface TaskFile {
   suffix: string;
   extension: string;
-  text: string;
+  /** The file's text, or its UTF-8 bytes as a writer built them. */
+  content: string | Uint8Array;
 }
 
 /** Where a file task writes its files: the `--out` folder's rules and the input's path relative to its root. */
@@ -34,7 +35,7 @@ export interface FileTaskEnvelope<P> {
 /** What a file task gives back: the input's manifest record, the verb's result, and the files written. */
 export interface FileTaskOutcome<R> {
   input: InputRecord;
-  /** The verb's result; with a target, the texts of its written files are emptied (they are on disk). */
+  /** The verb's result; with a target, the contents of its written files are emptied (they are on disk). */
   result: R;
   /** One entry per file of `result.files`, in order, when the task had a target and succeeded. */
   written: WrittenOutput[];
@@ -57,8 +58,8 @@ export async function runFileTask<P extends { bytes: Uint8Array }, R extends { o
   if (target !== undefined && result.ok)
     for (const file of result.files ?? []) {
       const path = outputPathFor(target.rules.root, target.relativePath, file.extension, file.suffix);
-      written.push(writeOutputFile(target.rules, path, file.text));
-      file.text = '';
+      written.push(writeOutputFile(target.rules, path, file.content));
+      file.content = '';
     }
   return { input, result, written };
 }

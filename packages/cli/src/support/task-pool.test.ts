@@ -46,7 +46,7 @@ describe('createTaskPool', () => {
       expect(outcome.written.map((w) => w.path)).toEqual([join('day1', 'dive.geojson')]);
       const text = readFileSync(join(root, 'day1', 'dive.geojson'), 'utf8');
       expect(outcome.written[0]?.sha256).toBe(sha256Hex(text));
-      expect(outcome.result.files[0]?.text).toBe('');
+      expect(outcome.result.files[0]?.content).toBe('');
     } finally {
       await threads.destroy();
       rmSync(root, { recursive: true, force: true });
