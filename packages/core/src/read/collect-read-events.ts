@@ -96,7 +96,7 @@ export function collectReadEvents(
       depthSign: track.depthSign ?? track.provenance.depthSign ?? NO_DEPTH,
     };
     const meta: { id: string; role: TrackRole; name?: string; provenance: Provenance } = {
-      id: `${context.fileName}#${track.role}${index === 0 ? '' : `-${index + 1}`}`,
+      id: `${fileBaseName(context.fileName)}#${track.role}${index === 0 ? '' : `-${index + 1}`}`,
       role: track.role,
       provenance,
     };
@@ -116,4 +116,12 @@ export function collectReadEvents(
   const report = context.columnReport?.();
   if (report !== undefined) result.columnReport = report;
   return result;
+}
+
+/**
+ * A file name without its folders, for track ids: an id is written on every CSV row and into output
+ * names, and is the same wherever the command ran; the name as given stays in `provenance.sourceFile`.
+ */
+function fileBaseName(fileName: string): string {
+  return fileName.slice(Math.max(fileName.lastIndexOf('/'), fileName.lastIndexOf('\\')) + 1);
 }
