@@ -36,6 +36,29 @@ describe('writeCsv', () => {
     expect(text.split('\r\n')[2]).toMatch(/,$/); // depth missing: empty, never NaN
     expect(text).not.toMatch(/NaN/);
   });
+
+  it('rounds the surface unit’s degrees like lat/lon (8 decimals, about 1 mm) and keeps other values whole', () => {
+    // 56°26.52664' N converted to decimal degrees carries 17 significant digits.
+    const withSurface = trackOf([
+      {
+        timeMs: Date.UTC(2026, 2, 3, 4, 5, 6),
+        latDeg: 56.44211066666667,
+        lonDeg: -5.619554500000001,
+        surfaceLatDeg: 56 + 26.52664 / 60,
+        surfaceLonDeg: -(5 + 37.17327 / 60),
+        slantRangeM: 12.3456789,
+      },
+    ]);
+    const rows = parse(writeCsv({ tracks: [withSurface], waypoints: [] })) as string[][];
+    const at = (name: string) => rows[1]?.[rows[0]?.indexOf(name) ?? -1];
+    expect([at('lat'), at('lon'), at('surface_lat'), at('surface_lon')]).toEqual([
+      '56.44211067',
+      '-5.6195545',
+      '56.44211067',
+      '-5.6195545',
+    ]);
+    expect(at('slant_range_m')).toBe('12.3456789');
+  });
 });
 
 describe('writeCsvBytes', () => {

@@ -15,7 +15,10 @@ export interface WriteCsvOptions {
    * otherwise, `crs_lon_deg`/`crs_lat_deg` for a geographic one. `lat`/`lon` (WGS 84) are always kept.
    */
   crs?: ResolvedCrs;
-  /** Decimal places of WGS 84 degrees (default 8, about 1 mm) and of projected coordinates (default 3). */
+  /**
+   * Decimal places of WGS 84 degrees (`lat`, `lon`, `surface_lat`, `surface_lon`; default 8, about
+   * 1 mm) and of projected coordinates (default 3).
+   */
   degreeDecimals?: number;
   projectedDecimals?: number;
   /** Field separator; default `,` (RFC 4180). */
@@ -33,6 +36,9 @@ const OPTIONAL_COLUMNS: ReadonlyArray<readonly [FixColumnName, string]> = [
   ['surfaceLonDeg', 'surface_lon'],
   ['surfaceHeadingDeg', 'surface_heading_deg'],
 ];
+
+/** Optional columns in WGS 84 degrees, rounded like `lat`/`lon`. */
+const DEGREE_COLUMNS: ReadonlySet<FixColumnName> = new Set(['surfaceLatDeg', 'surfaceLonDeg']);
 
 /** Logged values rarely carry more than three decimals (a guess that speeds the digits up, never changes them). */
 const LIKELY_DECIMALS = 3;
@@ -109,6 +115,8 @@ function buildCsv(input: WriteInput, options: WriteCsvOptions): TextBuffer {
     const trackFields = `${quote(track.id, sep)}${sep}${quote(track.role, sep)}${sep}`;
     const nameField = `${sep}${quote(track.name ?? '', sep)}${sep}`;
     const optional = columns.map(([column]) => c[column]);
+    // The surface unit's degrees are written like lat/lon (degDecimals); other values in their shortest form.
+    const inDegrees = columns.map(([column]) => DEGREE_COLUMNS.has(column));
     for (let s = 0; s < ranges.length; s++) {
       const [start, end] = ranges[s] as [number, number];
       const segmentFields = TextBuffer.encode(`${trackFields}${s + 1}${nameField}`);
@@ -125,9 +133,11 @@ function buildCsv(input: WriteInput, options: WriteCsvOptions): TextBuffer {
           out.char(sepCode);
           out.fixed(projected.y[i] as number, crsDecimals);
         }
-        for (const values of optional) {
+        for (let k = 0; k < optional.length; k++) {
           out.char(sepCode);
-          out.shortest(values[i] as number, LIKELY_DECIMALS);
+          const value = (optional[k] as ArrayLike<number>)[i] as number;
+          if (inDegrees[k]) out.fixed(value, degDecimals);
+          else out.shortest(value, LIKELY_DECIMALS);
         }
         out.char(13);
         out.char(10);
