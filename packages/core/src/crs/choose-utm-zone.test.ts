@@ -59,6 +59,29 @@ describe('chooseUtmZone', () => {
     expect(choice.note).toMatch(/antimeridian/);
   });
 
+  it('finds the zones a track enters as zone-by-zone over every fix would, near the exceptions too', () => {
+    // Small clusters anywhere UTM is defined, many on the Norway and Svalbard exceptions: whether a
+    // track straddles, and the note, must not depend on the shortcut taken for a box in one zone.
+    let seed = 7;
+    const random = () => {
+      seed = (seed * 1103515245 + 12345) % 2147483648;
+      return seed / 2147483648;
+    };
+    for (let k = 0; k < 2000; k++) {
+      const nearException = k % 2 === 0;
+      const lat0 = nearException ? 54 + random() * 29 : -79 + random() * 162;
+      const lon0 = nearException ? -2 + random() * 46 : -180 + random() * 360;
+      const size = random() < 0.5 ? random() * 0.05 : random() * 4;
+      const lat = Array.from({ length: 40 }, () => Math.min(84, lat0 + random() * size));
+      const lon = Array.from({ length: 40 }, () => lon0 + random() * size);
+      const choice = chooseUtmZone(lat, lon);
+      const entered = new Set(lat.map((la, i) => utmZoneOf(la, lon[i] as number)));
+      entered.delete(choice.zone);
+      expect(choice.straddles, `cluster ${k} at ${lat0}, ${lon0}`).toBe(entered.size > 0);
+      if (entered.size > 0) expect(choice.note).toContain([...entered].sort((a, b) => a - b).join(', '));
+    }
+  });
+
   it('refuses a track with no positions', () => {
     expect(() => chooseUtmZone([Number.NaN], [Number.NaN])).toThrow(/no fix has a position/);
   });

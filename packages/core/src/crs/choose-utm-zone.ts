@@ -1,5 +1,5 @@
 import { InvalidArgumentError } from '../errors.js';
-import { computeBoundingBox, computeCentroid } from '../geodesy/measure-track.js';
+import { type BoundingBox, computeBoundingBox, computeCentroid } from '../geodesy/measure-track.js';
 
 /** The UTM zone chosen for a set of positions, and what the user must be told about it. */
 export interface UtmChoice {
@@ -35,6 +35,18 @@ export function utmZoneOf(latDeg: number, lonDeg: number): number {
 }
 
 /**
+ * Whether every position in `box` lies in the zone of its south-west corner, known from the box
+ * alone: it crosses no zone edge (away from the exceptions the zone follows longitude only) and
+ * touches neither exception (Norway's 56°N–64°N × 3°E–12°E, Svalbard's 72°N–84°N × 0°–42°E).
+ */
+function withinOneZone(box: BoundingBox): boolean {
+  if (!(box.south >= -80 && box.north <= 84) || box.west > box.east) return false;
+  if (box.north >= 56 && box.south < 64 && box.east >= 3 && box.west < 12) return false;
+  if (box.north >= 72 && box.east >= 0 && box.west < 42) return false;
+  return utmZoneOf(box.south, box.west) === utmZoneOf(box.south, box.east);
+}
+
+/**
  * Chooses one UTM zone for a whole track from the centre of its positions (so a track that
  * straddles a zone boundary stays in one zone, and `straddles` says so), with the 32V and
  * 31X–37X exceptions. Hemisphere from the centre's latitude. Throws `InvalidArgumentError` when no
@@ -46,19 +58,21 @@ export function chooseUtmZone(latDeg: ArrayLike<number>, lonDeg: ArrayLike<numbe
   const zone = utmZoneOf(centre.latDeg, centre.lonDeg);
   const hemisphere = centre.latDeg >= 0 ? 'north' : 'south';
   const code = `EPSG:${hemisphere === 'north' ? 326 : 327}${String(zone).padStart(2, '0')}`;
-  const zones = new Set<number>();
-  const n = Math.min(latDeg.length, lonDeg.length);
-  let crossesEquator = false;
-  for (let i = 0; i < n; i++) {
-    const lat = latDeg[i] as number;
-    const lon = lonDeg[i] as number;
-    if (Number.isNaN(lat) || Number.isNaN(lon)) continue;
-    if (lat >= 0 !== (hemisphere === 'north')) crossesEquator = true;
-    if (lat >= -80 && lat <= 84) zones.add(utmZoneOf(lat, lon));
+  const box = computeBoundingBox(latDeg, lonDeg);
+  const zones = box !== undefined && withinOneZone(box) ? new Set([utmZoneOf(box.south, box.west)]) : new Set<number>();
+  let crossesEquator = box !== undefined && (hemisphere === 'north' ? box.south < 0 : box.north >= 0);
+  if (zones.size === 0) {
+    const n = Math.min(latDeg.length, lonDeg.length);
+    for (let i = 0; i < n; i++) {
+      const lat = latDeg[i] as number;
+      const lon = lonDeg[i] as number;
+      if (Number.isNaN(lat) || Number.isNaN(lon)) continue;
+      if (lat >= 0 !== (hemisphere === 'north')) crossesEquator = true;
+      if (lat >= -80 && lat <= 84) zones.add(utmZoneOf(lat, lon));
+    }
   }
   zones.delete(zone);
   const straddles = zones.size > 0;
-  const box = computeBoundingBox(latDeg, lonDeg);
   let note = `UTM zone ${zone}${hemisphere === 'north' ? 'N' : 'S'} (${code}) chosen from the track centre ${centre.latDeg.toFixed(5)}, ${centre.lonDeg.toFixed(5)}`;
   if (straddles)
     note += `; the track also enters zone ${[...zones].sort((a, b) => a - b).join(', ')} but stays in zone ${zone} for one consistent grid`;

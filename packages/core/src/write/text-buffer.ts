@@ -167,9 +167,12 @@ export class TextBuffer {
     this.#length = Math.min(this.#length, byteLength);
   }
 
-  /** The UTF-8 bytes written so far (a copy). */
+  /**
+   * The UTF-8 bytes written so far: a view of the buffer, not a copy (a season's outputs are
+   * hundreds of megabytes), so nothing may be written to this buffer afterwards.
+   */
   toBytes(): Uint8Array {
-    return this.#bytes.slice(0, this.#length);
+    return this.#bytes.subarray(0, this.#length);
   }
 
   /** The text written so far. */
