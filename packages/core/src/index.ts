@@ -66,7 +66,7 @@ export type {
   TrackRole,
   Waypoint,
 } from './model/track.js';
-export { createFixColumns, FIX_COLUMN_NAMES, getFix, hasColumnValues } from './model/track.js';
+export { createFixColumns, FIX_COLUMN_NAMES, getFix, hasColumnValues, joinColumns } from './model/track.js';
 export { TrackBuilder } from './model/track-builder.js';
 export type { LengthUnit, SpeedUnit } from './model/units.js';
 export {

@@ -4,6 +4,7 @@ import {
   chooseUtmZone,
   dropFlaggedFixes,
   formatRejection,
+  joinColumns,
   parseResolveSetup,
   type ReadOptions,
   readLog,
@@ -174,16 +175,4 @@ export function convertFileTask(payload: ConvertTaskPayload): ConvertTaskResult 
     resolvedTracks,
     files: [{ suffix: '', extension: `.${payload.to}`, content }],
   };
-}
-
-/** Every track's column followed by the waypoints' values, as one array. */
-function joinColumns(columns: ArrayLike<number>[], more: number[]): Float64Array {
-  const joined = new Float64Array(columns.reduce((n, c) => n + c.length, more.length));
-  let at = 0;
-  for (const column of columns) {
-    joined.set(column, at);
-    at += column.length;
-  }
-  joined.set(more, at);
-  return joined;
 }

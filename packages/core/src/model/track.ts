@@ -132,6 +132,18 @@ export function getFix(track: Track, index: number): Fix {
   return fix;
 }
 
+/** Several tracks' columns, one after another, followed by `more` values, as one array. */
+export function joinColumns(columns: readonly ArrayLike<number>[], more: ArrayLike<number> = []): Float64Array {
+  const joined = new Float64Array(columns.reduce((n, c) => n + c.length, more.length));
+  let at = 0;
+  for (const column of columns) {
+    joined.set(column, at);
+    at += column.length;
+  }
+  joined.set(more, at);
+  return joined;
+}
+
 /** Whether a column holds at least one value that is not `NaN`. */
 export function hasColumnValues(column: Float64Array): boolean {
   for (let i = 0; i < column.length; i++) if (!Number.isNaN(column[i] as number)) return true;

@@ -67,9 +67,16 @@ function scanDecimal(s: string, start: number, end: number, delimiter: number, d
   }
   scanStop = i;
   if (digitCount === 0) return Number.NaN;
-  if (digitCount > 15) return parseDecimal(s, start, i, decimalMark2);
+  if (digitCount > 15) return parseLongDecimal(s, start, i, decimalMark2);
   const value = fraction > 0 ? mantissa / (POW10[fraction] as number) : mantissa;
   return negative ? -value : value;
+}
+
+/** A number of more than 15 digits, left to `Number()` (the mantissa would not be exact). */
+function parseLongDecimal(s: string, start: number, end: number, decimalMark2: number): number {
+  const text = s.slice(start, end);
+  const value = Number(decimalMark2 === 44 ? text.replace(',', '.') : text);
+  return Number.isFinite(value) ? value : Number.NaN;
 }
 
 /** 10^k for k = 0..22, all exact in binary64. */
@@ -574,33 +581,6 @@ function parseDigits(s: string, start: number, end: number): number {
  * rounded, as `Number()` would give; longer numbers go to `Number()`.
  */
 export function parseDecimal(s: string, start: number, end: number, decimalMark2 = 46): number {
-  let i = start;
-  let negative = false;
-  const first = s.charCodeAt(i);
-  if (first === 45 || first === 43) {
-    negative = first === 45;
-    i++;
-  }
-  let mantissa = 0;
-  let digitCount = 0;
-  let fraction = -1;
-  for (; i < end; i++) {
-    const c = s.charCodeAt(i);
-    const d = c - 48;
-    if (d >= 0 && d <= 9) {
-      mantissa = mantissa * 10 + d;
-      digitCount++;
-      if (fraction >= 0) fraction++;
-    } else if ((c === 46 || c === decimalMark2) && fraction < 0) {
-      fraction = 0;
-    } else return Number.NaN;
-  }
-  if (digitCount === 0) return Number.NaN;
-  if (digitCount > 15) {
-    const text = s.slice(start, end);
-    const value = Number(decimalMark2 === 44 ? text.replace(',', '.') : text);
-    return Number.isFinite(value) ? value : Number.NaN;
-  }
-  const value = fraction > 0 ? mantissa / (POW10[fraction] as number) : mantissa;
-  return negative ? -value : value;
+  // No delimiter (-1 matches no character): the whole range must be the number.
+  return scanDecimal(s, start, end, -1, decimalMark2);
 }

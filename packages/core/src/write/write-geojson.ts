@@ -1,5 +1,5 @@
 import { computeBoundingBox } from '../geodesy/measure-track.js';
-import type { Track } from '../model/track.js';
+import { joinColumns, type Track } from '../model/track.js';
 import { formatIsoTime } from './format-decimal.js';
 import { TextBuffer } from './text-buffer.js';
 import { segmentRanges, type WriteInput, withSurfaceTracks, wrapLongitude } from './write-input.js';
@@ -353,18 +353,6 @@ function areaFeature(area: GeoJsonArea, decimals: number): object | undefined {
   return { type: 'Feature', properties: { name: area.name, kind: 'area' }, geometry };
 }
 
-// The tracks' columns followed by the other values, in one array.
-function joinColumns(columns: Float64Array[], others: number[], length: number): Float64Array {
-  const all = new Float64Array(length + others.length);
-  let at = 0;
-  for (const column of columns) {
-    all.set(column, at);
-    at += column.length;
-  }
-  all.set(others, at);
-  return all;
-}
-
 /**
  * Writes tracks (plus the surface unit logged beside vehicle fixes as its own track, see
  * `withSurfaceTracks`), waypoints and optional areas as an RFC 7946 GeoJSON FeatureCollection: positions
@@ -429,17 +417,14 @@ function buildCompactGeoJson(given: WriteInput, options: WriteGeoJsonOptions): T
     lats.push(...a.latDeg);
     lons.push(...a.lonDeg);
   }
-  const trackLength = input.tracks.reduce((n, t) => n + t.length, 0);
   const box = computeBoundingBox(
     joinColumns(
       input.tracks.map((t) => t.columns.latDeg),
       lats,
-      trackLength,
     ),
     joinColumns(
       input.tracks.map((t) => t.columns.lonDeg),
       lons,
-      trackLength,
     ),
   );
   const bbox = box
