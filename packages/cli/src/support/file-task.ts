@@ -39,6 +39,8 @@ export interface FileTaskOutcome<R> {
   result: R;
   /** One entry per file of `result.files`, in order, when the task had a target and succeeded. */
   written: WrittenOutput[];
+  /** Why a file could not be written (an output already there, an input in the way, a full disk); those before it were. */
+  writeError?: string;
 }
 
 /**
@@ -56,10 +58,15 @@ export async function runFileTask<P extends { bytes: Uint8Array }, R extends { o
   const result = await work({ ...envelope.task, bytes } as P);
   const written: WrittenOutput[] = [];
   if (target !== undefined && result.ok)
-    for (const file of result.files ?? []) {
-      const path = outputPathFor(target.rules.root, target.relativePath, file.extension, file.suffix);
-      written.push(writeOutputFile(target.rules, path, file.content));
-      file.content = '';
+    try {
+      for (const file of result.files ?? []) {
+        const path = outputPathFor(target.rules.root, target.relativePath, file.extension, file.suffix);
+        written.push(writeOutputFile(target.rules, path, file.content));
+        file.content = '';
+      }
+    } catch (error) {
+      // The files written so far stay on disk, so the manifest must still list them.
+      return { input, result, written, writeError: error instanceof Error ? error.message : String(error) };
     }
   return { input, result, written };
 }

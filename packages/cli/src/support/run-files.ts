@@ -88,7 +88,7 @@ export async function runFiles<R>(spec: RunFilesSpec<R>): Promise<FileRun<R> | n
       inputs,
       options.jobs,
       (input, index) =>
-        spec.work(input, { run: (name, task) => runFileTask(pool, out, input, name, task), out, index }),
+        spec.work(input, { run: (name, task) => dispatchFileTask(pool, out, input, name, task), out, index }),
       (done) => progress.update(done),
     );
   } finally {
@@ -104,8 +104,12 @@ export async function runFiles<R>(spec: RunFilesSpec<R>): Promise<FileRun<R> | n
   return { inputs, problems, out, reports, exitCode: problems.length > 0 ? EXIT_IO : EXIT_OK };
 }
 
-/** Runs one file task on `input` (standard input is read here, files on the worker), recording input and outputs. */
-async function runFileTask<N extends FileTaskName>(
+/**
+ * Sends one file task for `input` to the pool (standard input is read here, files on the worker)
+ * and records the input and the outputs in the manifest; a file that could not be written then
+ * fails this input, after the files written before it are recorded.
+ */
+async function dispatchFileTask<N extends FileTaskName>(
   pool: TaskPool,
   out: OutputFolder | undefined,
   input: InputFile,
@@ -118,6 +122,7 @@ async function runFileTask<N extends FileTaskName>(
   const outcome = (await pool.run(name, payload)) as TaskResult<FileTaskName>;
   out?.recordInput(input, outcome.input);
   for (const written of outcome.written) out?.recordOutput(written);
+  if (outcome.writeError !== undefined) throw new Error(outcome.writeError);
   return { result: outcome.result as TaskResult<N>['result'], written: outcome.written };
 }
 
