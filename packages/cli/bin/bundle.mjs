@@ -2,8 +2,9 @@
 // threads' entry), made by esbuild from the TypeScript sources of this package and of @leadline/core.
 // A bundle starts in a fraction of the time tsx needs to compile the sources on the fly, and every
 // worker thread would pay that compile again. The bundles are rebuilt (in well under a second)
-// whenever a source is newer, so an edited source is never run stale. Third-party packages stay
-// outside the bundles and load from node_modules as usual.
+// whenever a source is newer, so an edited source is never run stale. Third-party packages are
+// bundled too (loading dozens of CommonJS packages one by one costs more than our own code), except
+// the few that find files of their own at run time (OUTSIDE).
 import { mkdirSync, readdirSync, renameSync, rmSync, statSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
