@@ -205,6 +205,17 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
     }
     addFix(epoch, t.timeMs);
   };
+  // A ZDA's date: the open fix is finished first; fixes still waiting for a date take it (the day
+  // before when their time of day lies more than half a day after the ZDA's); later fixes follow it.
+  const setDate = (day: number, tod: number): void => {
+    flush();
+    if (undated.length > 0) {
+      for (const u of undated) emitEpoch(u, u.todMs > tod + HALF_DAY_MS ? day - DAY_MS : day);
+      undated.length = 0;
+    }
+    dayMs = day;
+    lastTodMs = tod;
+  };
   const flush = (): void => {
     if (!open) return;
     open = false;
@@ -522,20 +533,13 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
       if (tod !== undefined && d >= 1 && d <= 31 && m >= 1 && m <= 12 && y >= 0) {
         // as the general ZDA case below: this sentence's own event comes before the fixes it completes
         yield { kind: 'non-fix-row', line, why: 'ZDA sets the date' };
-        flush();
         // one date per day of sentences: computed once
         const key = y * 10_000 + m * 100 + d;
         if (key !== zdaDayKey) {
           zdaDayKey = key;
           zdaDayMs = Date.UTC(y, m - 1, d);
         }
-        const day = zdaDayMs;
-        if (undated.length > 0) {
-          for (const u of undated) emitEpoch(u, u.todMs > tod + HALF_DAY_MS ? day - DAY_MS : day);
-          undated.length = 0;
-        }
-        dayMs = day;
-        lastTodMs = tod;
+        setDate(zdaDayMs, tod);
         continue;
       }
     }
@@ -596,14 +600,7 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
         }
         // this sentence's own event comes before the fixes it completes (queued in `out`)
         yield { kind: 'non-fix-row', line, why: 'ZDA sets the date' };
-        flush();
-        const day = Date.UTC(y, m - 1, d);
-        if (undated.length > 0) {
-          for (const u of undated) emitEpoch(u, u.todMs > tod + HALF_DAY_MS ? day - DAY_MS : day);
-          undated.length = 0;
-        }
-        dayMs = day;
-        lastTodMs = tod;
+        setDate(Date.UTC(y, m - 1, d), tod);
         break;
       }
       default:
