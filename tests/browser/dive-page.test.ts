@@ -3,7 +3,7 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launchBrowser } from '../support/browser.js';
-import { canvasPixels } from '../support/browser-pages.js';
+import { canvasPixels, openWatchedPage } from '../support/browser-pages.js';
 import { createTestDatabase } from '../support/test-database.js';
 import { startWebServer } from '../support/web-server.js';
 
@@ -26,12 +26,7 @@ describe('dive page (preview) in headless Chromium', () => {
   });
 
   it('draws a 50 000-fix dive, highlights a chosen finding on both plots, zooms with the wheel', async () => {
-    const page = await browser.context.newPage();
-    await page.setViewportSize({ width: 1280, height: 900 });
-    const requested: string[] = [];
-    page.on('request', (request) => requested.push(request.url()));
-    const pageErrors: string[] = [];
-    page.on('pageerror', (error) => pageErrors.push(error.message));
+    const { page, requested, pageErrors } = await openWatchedPage(browser.context);
 
     await page.goto(`${web.baseUrl}/preview/dive?fixes=50000&seed=1`);
     const plan = page.getByTestId('plan-canvas');

@@ -4,6 +4,7 @@ import { deflateSync } from 'node:zlib';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launchBrowser } from '../support/browser.js';
+import { openWatchedPage } from '../support/browser-pages.js';
 import { createTestDatabase } from '../support/test-database.js';
 import { startWebServer } from '../support/web-server.js';
 
@@ -116,12 +117,7 @@ describe('plan view background map from a configured tile server', () => {
   });
 
   it('draws the tiles behind the track, credits them, and asks no other host', async () => {
-    const page = await browser.context.newPage();
-    await page.setViewportSize({ width: 1280, height: 900 });
-    const requested: string[] = [];
-    page.on('request', (request) => requested.push(request.url()));
-    const pageErrors: string[] = [];
-    page.on('pageerror', (error) => pageErrors.push(error.message));
+    const { page, requested, pageErrors } = await openWatchedPage(browser.context);
 
     await page.goto(`${web.baseUrl}/preview/dive?fixes=2000&seed=1`);
     const plan = page.getByTestId('plan-canvas');

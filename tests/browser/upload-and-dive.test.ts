@@ -9,7 +9,7 @@ import { DEMO_PASSWORD, DEMO_USERS, loadDemoData } from '@leadline/server';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launchBrowser } from '../support/browser.js';
-import { canvasPixels, signInThroughPage } from '../support/browser-pages.js';
+import { canvasPixels, openWatchedPage, signInThroughPage } from '../support/browser-pages.js';
 import { createTestDatabase } from '../support/test-database.js';
 import { startWebServer } from '../support/web-server.js';
 
@@ -73,10 +73,7 @@ describe('upload a log, follow its processing, open and download the dive in hea
     const logPath = join(work, file.name.split('/').pop() ?? 'simulated.csv');
     writeFileSync(logPath, file.text);
 
-    const page = await browser.context.newPage();
-    await page.setViewportSize({ width: 1280, height: 900 });
-    const pageErrors: string[] = [];
-    page.on('pageerror', (error) => pageErrors.push(error.message));
+    const { page, pageErrors } = await openWatchedPage(browser.context);
     await signInThroughPage(page, web.baseUrl, editor.email, DEMO_PASSWORD);
 
     // Upload page from the navigation; the project chooser lists the organisation's projects.

@@ -1,4 +1,4 @@
-import type { Page } from 'playwright-core';
+import type { BrowserContext, Page } from 'playwright-core';
 import { expect } from 'vitest';
 
 /** Signs in through the sign-in page and waits until the header offers to sign out. */
@@ -28,4 +28,20 @@ export function canvasPixels(page: Page, testId: string): Promise<{ inked: numbe
     }
     return { inked, highlight, total: data.length / 4 };
   });
+}
+
+/**
+ * A new page at 1280 × 900 that keeps every URL it requests and every uncaught script error, for a
+ * test to check that nothing failed and no other host was asked.
+ */
+export async function openWatchedPage(
+  context: BrowserContext,
+): Promise<{ page: Page; requested: string[]; pageErrors: string[] }> {
+  const page = await context.newPage();
+  await page.setViewportSize({ width: 1280, height: 900 });
+  const requested: string[] = [];
+  page.on('request', (request) => requested.push(request.url()));
+  const pageErrors: string[] = [];
+  page.on('pageerror', (error) => pageErrors.push(error.message));
+  return { page, requested, pageErrors };
 }

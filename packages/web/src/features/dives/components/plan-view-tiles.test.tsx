@@ -1,9 +1,6 @@
-import { cleanup, fireEvent, render, screen, waitFor } from '@testing-library/react';
+import { cleanup, fireEvent, screen, waitFor } from '@testing-library/react';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
-import { createLocalGrid } from '../lib/grid-system';
-import { preparePlotData } from '../lib/prepare-plot-data';
-import { createSampleDive } from '../testing/create-sample-dive';
-import { PlanView, type TileSource } from './plan-view';
+import { renderSamplePlan } from '../testing/render-sample-plan';
 
 // jsdom has no 2-D canvas; a context that accepts every call stands in, so the drawing code (and
 // the tile requests it makes) runs. The pixels themselves are checked in tests/browser.
@@ -47,25 +44,9 @@ afterEach(() => {
   vi.unstubAllGlobals();
 });
 
-function renderPlan(tileSource: TileSource | null) {
-  const data = preparePlotData(createSampleDive({ fixCount: 300, seed: 1 }));
-  render(
-    <PlanView
-      data={data}
-      colourMode="depth"
-      grid={createLocalGrid()}
-      highlight={undefined}
-      cursorIndex={0}
-      description="plan"
-      tileSource={tileSource}
-    />,
-  );
-  return screen.getByTestId('plan-canvas');
-}
-
 describe('PlanView background map', () => {
   it('asks for no image at all and offers no map switch when no tile template is configured', async () => {
-    const canvas = renderPlan(null);
+    const canvas = renderSamplePlan({ tileSource: null });
     await waitFor(() => expect(Number(canvas.getAttribute('data-draw-count'))).toBeGreaterThan(0));
     expect(imageSources).toEqual([]);
     expect(screen.queryByRole('checkbox', { name: 'Background map' })).toBeNull();
@@ -73,7 +54,9 @@ describe('PlanView background map', () => {
   });
 
   it('asks the configured server for the tiles under the view, shows the credit, and stops when switched off', async () => {
-    const canvas = renderPlan({ url: 'http://127.0.0.1:9000/{z}/{x}/{y}.png', attribution: 'Hollowtide charts' });
+    const canvas = renderSamplePlan({
+      tileSource: { url: 'http://127.0.0.1:9000/{z}/{x}/{y}.png', attribution: 'Hollowtide charts' },
+    });
     await waitFor(() => expect(imageSources.length).toBeGreaterThan(0));
     for (const source of imageSources) expect(source).toMatch(/^http:\/\/127\.0\.0\.1:9000\/\d+\/\d+\/\d+\.png$/);
     expect(new Set(imageSources).size).toBe(imageSources.length);

@@ -1,28 +1,10 @@
-import { cleanup, fireEvent, render, screen } from '@testing-library/react';
+import { cleanup, fireEvent, screen } from '@testing-library/react';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
-import { createLocalGrid } from '../lib/grid-system';
-import { preparePlotData } from '../lib/prepare-plot-data';
-import { createSampleDive } from '../testing/create-sample-dive';
-import { PlanView } from './plan-view';
+import { renderSamplePlan } from '../testing/render-sample-plan';
 
 beforeEach(() => {
   vi.spyOn(HTMLCanvasElement.prototype, 'getContext').mockReturnValue(null);
 });
-
-function renderPlan() {
-  const data = preparePlotData(createSampleDive({ fixCount: 300, seed: 1 }));
-  render(
-    <PlanView
-      data={data}
-      colourMode="depth"
-      grid={createLocalGrid()}
-      highlight={undefined}
-      cursorIndex={0}
-      description="plan"
-    />,
-  );
-  return screen.getByTestId('plan-canvas');
-}
 
 const scaleOf = (canvas: HTMLElement) => Number(canvas.getAttribute('data-metres-per-px'));
 
@@ -30,7 +12,7 @@ afterEach(cleanup);
 
 describe('PlanView', () => {
   it('zooms with the buttons and fits the dive again', () => {
-    const canvas = renderPlan();
+    const canvas = renderSamplePlan();
     const fitted = scaleOf(canvas);
     fireEvent.click(screen.getByRole('button', { name: 'Zoom in' }));
     expect(scaleOf(canvas)).toBeCloseTo(fitted / 1.5, 9);
@@ -42,7 +24,7 @@ describe('PlanView', () => {
   });
 
   it('is focusable and takes +, −, arrows and 0 from the keyboard', () => {
-    const canvas = renderPlan();
+    const canvas = renderSamplePlan();
     const plot = screen.getByRole('application', { name: 'Plan view plot' });
     expect(plot.tabIndex).toBe(0);
     expect(plot.getAttribute('aria-describedby')).toBeTruthy();
@@ -57,7 +39,7 @@ describe('PlanView', () => {
   });
 
   it('shows a scale bar whose label follows the zoom', () => {
-    const canvas = renderPlan();
+    const canvas = renderSamplePlan();
     const before = screen.getByTestId('scale-bar').textContent;
     for (let i = 0; i < 4; i++) fireEvent.click(screen.getByRole('button', { name: 'Zoom in' }));
     expect(scaleOf(canvas)).toBeGreaterThan(0);
@@ -65,7 +47,7 @@ describe('PlanView', () => {
   });
 
   it('zooms in when two pointers pinch outwards and pans (without zooming) with one', () => {
-    const canvas = renderPlan();
+    const canvas = renderSamplePlan();
     const fitted = scaleOf(canvas);
     fireEvent.pointerDown(canvas, { pointerId: 1, clientX: 100, clientY: 100 });
     fireEvent.pointerMove(canvas, { pointerId: 1, clientX: 140, clientY: 120 });
