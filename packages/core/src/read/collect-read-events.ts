@@ -37,9 +37,15 @@ export function collectReadEvents(
   let rowCount = 0;
   let nonFixRowCount = 0;
   let dialect: string = context.format;
-  const openTrack = (role: TrackRole, name?: string, provenance: Partial<Provenance> = {}): OpenTrack => {
-    const capacity =
-      open.length === 0 && context.capacityHint !== undefined ? Math.max(1024, context.capacityHint) : 1024;
+  const openTrack = (
+    role: TrackRole,
+    name?: string,
+    provenance: Partial<Provenance> = {},
+    capacityHint?: number,
+  ): OpenTrack => {
+    // the reader's own estimate for this track beats the caller's for the file
+    const hint = capacityHint ?? (open.length === 0 ? context.capacityHint : undefined);
+    const capacity = hint !== undefined ? Math.max(1024, hint) : 1024;
     const track: OpenTrack = { builder: new FixColumnAppender(capacity), role, provenance };
     if (name !== undefined) track.name = name;
     open.push(track);
@@ -48,7 +54,7 @@ export function collectReadEvents(
   for (const event of events) {
     switch (event.kind) {
       case 'track':
-        current = openTrack(event.role, event.name, event.provenance);
+        current = openTrack(event.role, event.name, event.provenance, event.capacityHint);
         break;
       case 'segment':
         current?.builder.startSegment();
@@ -69,6 +75,9 @@ export function collectReadEvents(
         break;
       case 'non-fix-row':
         nonFixRowCount++;
+        break;
+      case 'non-fix-rows':
+        nonFixRowCount += event.count;
         break;
       case 'depth-sign':
         if (current !== undefined) current.depthSign = event.decision;

@@ -18,7 +18,14 @@ export interface FixBatch {
  * by a `track` event; a `segment` event starts a new segment of that track.
  */
 export type ReadEvent =
-  | { kind: 'track'; role: TrackRole; name?: string; provenance?: Partial<Provenance> }
+  | {
+      kind: 'track';
+      role: TrackRole;
+      name?: string;
+      provenance?: Partial<Provenance>;
+      /** Fixes the reader expects in this track (an estimate that sizes its columns once; they still grow). */
+      capacityHint?: number;
+    }
   | { kind: 'segment' }
   | { kind: 'fix'; fix: Fix; line: number }
   | { kind: 'fix-batch'; batch: FixBatch }
@@ -26,6 +33,12 @@ export type ReadEvent =
   | { kind: 'rejection'; rejection: Rejection }
   /** A source row that is neither a fix nor a rejection on purpose: a header, a comment, an NMEA sentence merged into a neighbouring fix. */
   | { kind: 'non-fix-row'; line: number; why: string }
+  /**
+   * Several non-fix rows at once, counted: a reader with many of them (NMEA sentences merged into
+   * fixes) hands on a count instead of an event per row. The rows may come before or after the fixes
+   * around them.
+   */
+  | { kind: 'non-fix-rows'; count: number }
   /** The depth-sign decision for the current track, when the reader can only make it at the end. */
   | { kind: 'depth-sign'; decision: DepthSignDecision }
   | { kind: 'note'; text: string }
