@@ -1,6 +1,26 @@
 import { describe, expect, it } from 'vitest';
 import { parseCoordinate } from './parse-coordinate.js';
-import { parseDegreeSymbols } from './parse-csv-row-fast.js';
+import { parseDecimal, parseDegreeSymbols } from './parse-csv-row-fast.js';
+
+describe('parseDecimal', () => {
+  it("gives Number()'s value for every plain decimal and NaN for anything else", () => {
+    // Number() is the reference (ECMAScript StringToNumber, correctly rounded).
+    const cells = ['0', '-0', '+7', '1.', '.5', '-.25', '12.50', '007.0700', '123456789012345', '1234567890123456'];
+    cells.push('9007199254740993', '0.1234567890123456789', '-42.8820958', '147.3419309', '6258365.896');
+    for (let i = 0; i < 5_000; i++) {
+      const digits = String((i * 2_654_435_761) % 1e9).padStart(1 + (i % 9), '0');
+      const point = i % 11;
+      const sign = ['', '-', '+'][i % 3];
+      cells.push(`${sign}${digits.slice(0, point)}${point <= digits.length ? '.' : ''}${digits.slice(point)}`);
+    }
+    for (const cell of cells) expect(Object.is(parseDecimal(cell, 0, cell.length), Number(cell)), cell).toBe(true);
+    for (const cell of ['', '-', '+', '.', '-.', '1.2.3', '1e5', '0x10', ' 1', '1 ', '1,5', '--1', 'Infinity', 'NaN'])
+      expect(parseDecimal(cell, 0, cell.length), cell).toBeNaN();
+    // a decimal comma where the dialect has one
+    expect(parseDecimal('59,0511749', 0, 10, 44)).toBe(59.0511749);
+    expect(parseDecimal('59,05,1', 0, 7, 44)).toBeNaN();
+  });
+});
 
 describe('parseDegreeSymbols', () => {
   it('gives the value parseCoordinate gives, or NaN to leave the cell to the general path', () => {

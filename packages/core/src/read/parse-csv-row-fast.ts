@@ -47,28 +47,34 @@ function scanDecimal(s: string, start: number, end: number, delimiter: number, d
     negative = first === 45;
     i++;
   }
+  // The whole part, then the fraction: two tight loops (no per-digit test of which part it is in).
   let mantissa = 0;
-  let digitCount = 0;
-  let fraction = -1;
+  let c = 0;
+  const wholeStart = i;
   for (; i < end; i++) {
-    const c = s.charCodeAt(i);
+    c = s.charCodeAt(i);
     const d = c - 48;
-    if (d >= 0 && d <= 9) {
+    if (d < 0 || d > 9) break;
+    mantissa = mantissa * 10 + d;
+  }
+  let digitCount = i - wholeStart;
+  let fractionDigits = 0;
+  if (i < end && (c === 46 || c === decimalMark2)) {
+    const fractionStart = ++i;
+    for (; i < end; i++) {
+      c = s.charCodeAt(i);
+      const d = c - 48;
+      if (d < 0 || d > 9) break;
       mantissa = mantissa * 10 + d;
-      digitCount++;
-      if (fraction >= 0) fraction++;
-    } else if ((c === 46 || c === decimalMark2) && fraction < 0) {
-      fraction = 0;
-    } else if (c === delimiter) break;
-    else {
-      scanStop = i;
-      return Number.NaN;
     }
+    fractionDigits = i - fractionStart;
+    digitCount += fractionDigits;
   }
   scanStop = i;
+  if (i < end && c !== delimiter) return Number.NaN;
   if (digitCount === 0) return Number.NaN;
   if (digitCount > 15) return parseLongDecimal(s, start, i, decimalMark2);
-  const value = fraction > 0 ? mantissa / (POW10[fraction] as number) : mantissa;
+  const value = fractionDigits > 0 ? mantissa / (POW10[fractionDigits] as number) : mantissa;
   return negative ? -value : value;
 }
 
