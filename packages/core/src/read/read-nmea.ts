@@ -8,7 +8,7 @@ import { parseDecimal } from './parse-csv-row-fast.js';
 import { EARLIEST_TIME_MS, LATEST_TIME_MS, LogTimeParser } from './parse-log-time.js';
 import { type LogTextInput, refusedLog } from './read-csv.js';
 import type { FixBatch, ReadEvent } from './read-event.js';
-import { pullLogLines } from './split-log-lines.js';
+import { type LogLineCursor, pullLogLines } from './split-log-lines.js';
 
 const DAY_MS = 86_400_000;
 const HALF_DAY_MS = 43_200_000;
@@ -75,8 +75,9 @@ const RMC = 3;
 const HDT = 4;
 const VTG = 5;
 const ZDA = 6;
+const HDG = 7;
 
-/** HDT, VTG or ZDA (any letter case) from the last three characters of the address ending at `end`, else OTHER. */
+/** HDT, VTG, ZDA or HDG (any letter case) from the last three characters of the address ending at `end`, else OTHER. */
 function otherSentenceKind(src: string, end: number): number {
   const a = src.charCodeAt(end - 3) | 32;
   const b = src.charCodeAt(end - 2) | 32;
@@ -84,6 +85,7 @@ function otherSentenceKind(src: string, end: number): number {
   if (a === 104 && b === 100 && c === 116) return HDT; // h d t
   if (a === 118 && b === 116 && c === 103) return VTG; // v t g
   if (a === 122 && b === 100 && c === 97) return ZDA; // z d a
+  if (a === 104 && b === 100 && c === 103) return HDG; // h d g
   return OTHER;
 }
 
@@ -123,7 +125,8 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
   const file = input.fileName;
   const times = new LogTimeParser('UTC');
   const role: TrackRole = options.role ?? (/surface|ship|vessel|boat/i.test(file) ? 'surface' : 'vehicle');
-  yield { kind: 'track', role };
+  const capacityHint = estimateFixCount(input.chunks);
+  yield capacityHint === undefined ? { kind: 'track', role } : { kind: 'track', role, capacityHint };
   let rowCount = 0;
   let dayMs: number | undefined; // 00:00 UTC of the current date
   let lastTodMs: number | undefined;
@@ -140,6 +143,8 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
   let altitudes = 0;
   let positiveAltitudes = 0;
   let magneticWithoutVariation = 0;
+  /** Rows merged into a fix or not used, not yet handed on (as one `non-fix-rows` event). */
+  let nonFixRows = 0;
   const reject = (line: number, code: RejectionCode, expected: string, found: string, column?: number): ReadEvent => ({
     kind: 'rejection',
     rejection:
@@ -239,7 +244,7 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
   /** Starts the epoch at `todMs` with this position, or joins the open one of the same time (keeping its position). */
   const joinEpoch = (todMs: number, line: number, latDeg: number, lonDeg: number): Epoch => {
     if (open && current.todMs === todMs) {
-      pushEvent({ kind: 'non-fix-row', line, why: 'merged into the fix of the same time' });
+      nonFixRows++; // merged into the fix of the same time
       return current;
     }
     flush();
@@ -322,28 +327,18 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
     }
     return false;
   };
-  let zdaDayKey = -1;
-  let zdaDayMs = 0;
-  const pullLine = pullLogLines(input.chunks);
-  for (let c = pullLine(); c !== undefined; c = pullLine()) {
-    if (out.length > 0) {
-      for (let k = 0; k < out.length; k++) yield out[k] as ReadEvent;
-      out.length = 0;
-      if (sealed) {
-        // the consumer has moved past the queued batch: its arrays can be filled again
-        batch.count = 0;
-        sealed = false;
-      }
-    }
+  /**
+   * Reads one line. Events go to `out` (handed on after the line); rows merged into a fix or not
+   * used are only counted in `nonFixRows`, so they never break a batch of fixes.
+   */
+  const readLine = (c: LogLineCursor): void => {
     const line = c.line;
     if (c.tooLongChars >= 0) {
       rowCount++;
-      if (batch.count > 0) {
-        yield { kind: 'fix-batch', batch };
-        batch.count = 0;
-      }
-      yield reject(line, 'line-too-long', 'an NMEA sentence of at most 82 characters', `${c.tooLongChars} characters`);
-      continue;
+      pushEvent(
+        reject(line, 'line-too-long', 'an NMEA sentence of at most 82 characters', `${c.tooLongChars} characters`),
+      );
+      return;
     }
     const src = c.source;
     let from = c.start;
@@ -351,43 +346,39 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
     // trim white space at both ends without copying
     while (from < to && src.charCodeAt(from) <= 32) from++;
     while (to > from && src.charCodeAt(to - 1) <= 32) to--;
-    if (from === to) continue;
+    if (from === to) return;
     rowCount++;
     let at = src.charCodeAt(from) === 36 ? from : src.indexOf('$', from);
     if (at < 0 || at >= to) at = src.indexOf('!', from);
     if (at < 0 || at >= to) {
-      if (batch.count > 0) {
-        yield { kind: 'fix-batch', batch };
-        batch.count = 0;
-      }
-      yield reject(
-        line,
-        'unsupported-sentence',
-        'an NMEA 0183 sentence ($, talker ID, sentence type, fields)',
-        quote(src.slice(from, to)),
+      pushEvent(
+        reject(
+          line,
+          'unsupported-sentence',
+          'an NMEA 0183 sentence ($, talker ID, sentence type, fields)',
+          quote(src.slice(from, to)),
+        ),
       );
-      continue;
+      return;
     }
     if (to - at + 2 > NMEA_MAX_SENTENCE) overLength++;
-    if (readFixSentence(src, at, to, line)) continue;
+    if (readFixSentence(src, at, to, line)) return;
     // `readFixSentence` found the fields and the checksum in one pass; fields are then read in
     // place, copied only on rare paths
     const x = scannedChecksum;
     const star = fields.star;
     if (star >= 0) {
       if (hexByteAt(src, star + 1, to) !== x) {
-        if (batch.count > 0) {
-          yield { kind: 'fix-batch', batch };
-          batch.count = 0;
-        }
-        yield reject(
-          line,
-          'bad-checksum',
-          `checksum ${HEX[(x >> 4) & 15]}${HEX[x & 15]} (XOR of the characters between $ and *)`,
-          `*${src.slice(star + 1, to)}`,
-          star - c.start + 1,
+        pushEvent(
+          reject(
+            line,
+            'bad-checksum',
+            `checksum ${HEX[(x >> 4) & 15]}${HEX[x & 15]} (XOR of the characters between $ and *)`,
+            `*${src.slice(star + 1, to)}`,
+            star - c.start + 1,
+          ),
         );
-        continue;
+        return;
       }
     } else {
       withoutChecksum++;
@@ -401,116 +392,25 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
         ? UNUSED
         : sentenceKind(src, addressEnd);
     if (kind === GGA) {
-      const tod = parseTimeOfDayIn(src, fields.start(1), fields.end(1));
-      const quality = fields.number(6);
-      const lat = parseNmeaCoordinateIn(src, fields.start(2), fields.end(2), fields.letter(3), 2);
-      const lon = parseNmeaCoordinateIn(src, fields.start(4), fields.end(4), fields.letter(5), 3);
-      if (tod !== undefined && quality !== 0 && lat !== undefined && lon !== undefined) {
-        const epoch = joinEpoch(tod, line, lat, lon);
-        if (!Number.isNaN(quality)) epoch.quality = quality;
-        const altitude = fields.number(9);
-        if (Number.isFinite(altitude)) {
-          epoch.depthM = -altitude + 0;
-          altitudes++;
-          if (altitude > 0) positiveAltitudes++;
-        }
-        continue;
-      }
-      if (batch.count > 0) {
-        yield { kind: 'fix-batch', batch };
-        batch.count = 0;
-      }
-      if (tod === undefined) {
-        yield reject(line, 'unparsable-time', 'a UTC time of day hhmmss.ss in GGA field 1', quote(fields.get(1)), 2);
-        continue;
-      }
-      if (quality === 0 || fields.isEmpty(2) || fields.isEmpty(4)) {
-        yield reject(
-          line,
-          'no-fix',
-          'a GGA position with fix quality 1-8',
-          quality === 0 ? 'quality 0 (no fix)' : 'an empty position',
-        );
-        continue;
-      }
-      yield reject(
-        line,
-        'unparsable-coordinate',
-        lat === undefined ? 'latitude ddmm.mmmm with N or S' : 'longitude dddmm.mmmm with E or W',
-        quote(lat === undefined ? `${fields.get(2)},${fields.get(3)}` : `${fields.get(4)},${fields.get(5)}`),
-      );
-      continue;
+      rejectGga(src, line);
+      return;
     }
     if (kind === RMC) {
-      const tod = parseTimeOfDayIn(src, fields.start(1), fields.end(1));
-      const day = parseNmeaDateIn(src, fields.start(9), fields.end(9));
-      const active = fields.letter(2) === 65; /* A */
-      const lat = parseNmeaCoordinateIn(src, fields.start(3), fields.end(3), fields.letter(4), 2);
-      const lon = parseNmeaCoordinateIn(src, fields.start(5), fields.end(5), fields.letter(6), 3);
-      if (
-        tod !== undefined &&
-        active &&
-        lat !== undefined &&
-        lon !== undefined &&
-        (day !== undefined || fields.isEmpty(9))
-      ) {
-        const epoch = joinEpoch(tod, line, lat, lon);
-        if (day !== undefined) epoch.dayMs = day;
-        const sog = fields.number(7);
-        if (!Number.isNaN(sog) && Number.isNaN(epoch.speedMps)) epoch.speedMps = sog * MPS_PER_KNOT;
-        continue;
-      }
-      if (batch.count > 0) {
-        yield { kind: 'fix-batch', batch };
-        batch.count = 0;
-      }
-      if (tod === undefined) {
-        yield reject(line, 'unparsable-time', 'a UTC time of day hhmmss.ss in RMC field 1', quote(fields.get(1)), 2);
-        continue;
-      }
-      if (!active || fields.isEmpty(3) || fields.isEmpty(5)) {
-        if (day !== undefined && !open) {
-          dayMs = day;
-          lastTodMs = tod;
-        }
-        yield reject(
-          line,
-          'no-fix',
-          'an RMC with status A and a position',
-          fields.get(2) === 'V' ? 'status V (warning, no valid fix)' : 'an empty position',
-        );
-        continue;
-      }
-      if (lat === undefined || lon === undefined) {
-        yield reject(
-          line,
-          'unparsable-coordinate',
-          lat === undefined ? 'latitude ddmm.mmmm with N or S' : 'longitude dddmm.mmmm with E or W',
-          quote(lat === undefined ? `${fields.get(3)},${fields.get(4)}` : `${fields.get(5)},${fields.get(6)}`),
-        );
-        continue;
-      }
-      yield reject(line, 'unparsable-time', 'an RMC date ddmmyy in field 9', quote(fields.get(9)), 10);
-      continue;
-    }
-    // every other sentence yields an event of its own: hand on the fixes gathered so far first
-    if (batch.count > 0) {
-      yield { kind: 'fix-batch', batch };
-      batch.count = 0;
+      rejectRmc(src, line);
+      return;
     }
     if (kind === UNUSED) {
       const address = fields.get(0);
       unused.set(address, (unused.get(address) ?? 0) + 1);
-      yield { kind: 'non-fix-row', line, why: 'sentence type not used' };
-      continue;
+      nonFixRows++;
+      return;
     }
-    // the sentences that come with every fix, read in place; anything unusual goes the general way below
     const other = otherSentenceKind(src, addressEnd);
     if (other === HDT) {
       const heading = fields.number(1);
       if (!Number.isNaN(heading)) attachHeading(normaliseAzimuthDeg(heading));
-      yield { kind: 'non-fix-row', line, why: 'HDT merged into the current fix' };
-      continue;
+      nonFixRows++;
+      return;
     }
     if (other === VTG) {
       // Older form `$--VTG,x.x,x,x.x,x.x`: field 2 is not the literal T (NMEA Revealed, VTG).
@@ -518,100 +418,166 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
       const knots = fields.number(newer ? 5 : 3);
       const kmh = fields.number(newer ? 7 : 4);
       attachSpeed(!Number.isNaN(knots) ? knots * MPS_PER_KNOT : !Number.isNaN(kmh) ? kmh / 3.6 : Number.NaN);
-      yield { kind: 'non-fix-row', line, why: 'VTG merged into the current fix' };
-      continue;
+      nonFixRows++;
+      return;
+    }
+    if (other === HDG) {
+      readHdg();
+      nonFixRows++;
+      return;
     }
     if (other === ZDA) {
-      const tod = parseTimeOfDayIn(src, fields.start(1), fields.end(1));
-      const d = fields.end(2) - fields.start(2) === 2 ? twoDigits(src, fields.start(2)) : -1;
-      const m = fields.end(3) - fields.start(3) === 2 ? twoDigits(src, fields.start(3)) : -1;
-      const y4 = fields.start(4);
-      const y =
-        fields.end(4) - y4 === 4 && twoDigits(src, y4) >= 0 && twoDigits(src, y4 + 2) >= 0
-          ? twoDigits(src, y4) * 100 + twoDigits(src, y4 + 2)
-          : -1;
-      if (tod !== undefined && d >= 1 && d <= 31 && m >= 1 && m <= 12 && y >= 0) {
-        // as the general ZDA case below: this sentence's own event comes before the fixes it completes
-        yield { kind: 'non-fix-row', line, why: 'ZDA sets the date' };
-        // one date per day of sentences: computed once
-        const key = y * 10_000 + m * 100 + d;
-        if (key !== zdaDayKey) {
-          zdaDayKey = key;
-          zdaDayMs = Date.UTC(y, m - 1, d);
-        }
-        setDate(zdaDayMs, tod);
-        continue;
-      }
+      readZda(src, at, to, line);
+      return;
     }
-    const address = fields.get(0);
-    const typeRaw = address.slice(address.length - 3);
-    const type = typeRaw === typeRaw.toUpperCase() ? typeRaw : typeRaw.toUpperCase();
-    switch (type) {
-      case 'VTG': {
-        // Older form `$--VTG,x.x,x,x.x,x.x`: field 2 is not the literal T (NMEA Revealed, VTG).
-        const newer = fields.get(2) === 'T' || fields.get(2) === '';
-        const knots = Number(newer ? fields.get(5) : fields.get(3));
-        const kmh = Number(newer ? fields.get(7) : fields.get(4));
-        const speed =
-          (newer ? fields.get(5) : fields.get(3)) !== '' && Number.isFinite(knots)
-            ? knots * MPS_PER_KNOT
-            : (newer ? fields.get(7) : fields.get(4)) !== '' && Number.isFinite(kmh)
-              ? kmh / 3.6
-              : Number.NaN;
-        attachSpeed(speed);
-        yield { kind: 'non-fix-row', line, why: 'VTG merged into the current fix' };
-        break;
+    const typeRaw = src.slice(addressEnd - 3, addressEnd);
+    const type = typeRaw.toUpperCase();
+    unused.set(type, (unused.get(type) ?? 0) + 1);
+    nonFixRows++;
+  };
+  /**
+   * Why `readFixSentence` declined a GGA whose checksum is good (it takes every GGA with a time, a
+   * fix and a position, so one of them is wrong here): the rejection.
+   */
+  const rejectGga = (src: string, line: number): void => {
+    const tod = parseTimeOfDayIn(src, fields.start(1), fields.end(1));
+    const quality = fields.number(6);
+    const lat = parseNmeaCoordinateIn(src, fields.start(2), fields.end(2), fields.letter(3), 2);
+    if (tod === undefined) {
+      pushEvent(reject(line, 'unparsable-time', 'a UTC time of day hhmmss.ss in GGA field 1', quote(fields.get(1)), 2));
+      return;
+    }
+    if (quality === 0 || fields.isEmpty(2) || fields.isEmpty(4)) {
+      pushEvent(
+        reject(
+          line,
+          'no-fix',
+          'a GGA position with fix quality 1-8',
+          quality === 0 ? 'quality 0 (no fix)' : 'an empty position',
+        ),
+      );
+      return;
+    }
+    pushEvent(
+      reject(
+        line,
+        'unparsable-coordinate',
+        lat === undefined ? 'latitude ddmm.mmmm with N or S' : 'longitude dddmm.mmmm with E or W',
+        quote(lat === undefined ? `${fields.get(2)},${fields.get(3)}` : `${fields.get(4)},${fields.get(5)}`),
+      ),
+    );
+  };
+  /**
+   * Why `readFixSentence` declined an RMC whose checksum is good (it takes every RMC with a time,
+   * status A, a position and a valid or empty date): the rejection. A void RMC may still set the date.
+   */
+  const rejectRmc = (src: string, line: number): void => {
+    const tod = parseTimeOfDayIn(src, fields.start(1), fields.end(1));
+    const day = parseNmeaDateIn(src, fields.start(9), fields.end(9));
+    const active = fields.letter(2) === 65; /* A */
+    const lat = parseNmeaCoordinateIn(src, fields.start(3), fields.end(3), fields.letter(4), 2);
+    const lon = parseNmeaCoordinateIn(src, fields.start(5), fields.end(5), fields.letter(6), 3);
+    if (tod === undefined) {
+      pushEvent(reject(line, 'unparsable-time', 'a UTC time of day hhmmss.ss in RMC field 1', quote(fields.get(1)), 2));
+      return;
+    }
+    if (!active || fields.isEmpty(3) || fields.isEmpty(5)) {
+      if (day !== undefined && !open) {
+        dayMs = day;
+        lastTodMs = tod;
       }
-      case 'HDT': {
-        const heading = Number(fields.get(1));
-        if (fields.get(1) !== '' && Number.isFinite(heading)) attachHeading(normaliseAzimuthDeg(heading));
-        yield { kind: 'non-fix-row', line, why: 'HDT merged into the current fix' };
-        break;
-      }
-      case 'HDG': {
-        const magnetic = Number(fields.get(1));
-        const deviation = fields.get(2) === '' ? 0 : Number(fields.get(2)) * (fields.get(3) === 'W' ? -1 : 1);
-        if (fields.get(1) !== '' && Number.isFinite(magnetic)) {
-          if (fields.get(4) === '') magneticWithoutVariation++;
-          else {
-            // true = magnetic + deviation + variation, east positive (NMEA HDG; from memory)
-            const variation = Number(fields.get(4)) * (fields.get(5) === 'W' ? -1 : 1);
-            const heading = magnetic + deviation + variation;
-            if (Number.isFinite(heading)) attachHeading(normaliseAzimuthDeg(heading));
-          }
-        }
-        yield { kind: 'non-fix-row', line, why: 'HDG merged into the current fix' };
-        break;
-      }
-      case 'ZDA': {
-        const tod = parseTimeOfDay(fields.get(1));
-        const d = Number(fields.get(2));
-        const m = Number(fields.get(3));
-        const y = Number(fields.get(4));
-        const valid = tod !== undefined && /^\d{4}$/.test(fields.get(4)) && d >= 1 && d <= 31 && m >= 1 && m <= 12;
-        if (!valid) {
-          yield reject(
-            line,
-            'unparsable-time',
-            'a ZDA with hhmmss.ss, day, month and 4-digit year',
-            quote(src.slice(at, to)),
-          );
-          continue;
-        }
-        // this sentence's own event comes before the fixes it completes (queued in `out`)
-        yield { kind: 'non-fix-row', line, why: 'ZDA sets the date' };
-        setDate(Date.UTC(y, m - 1, d), tod);
-        break;
-      }
-      default:
-        unused.set(type, (unused.get(type) ?? 0) + 1);
-        yield { kind: 'non-fix-row', line, why: 'sentence type not used' };
+      pushEvent(
+        reject(
+          line,
+          'no-fix',
+          'an RMC with status A and a position',
+          fields.get(2) === 'V' ? 'status V (warning, no valid fix)' : 'an empty position',
+        ),
+      );
+      return;
+    }
+    if (lat === undefined || lon === undefined) {
+      pushEvent(
+        reject(
+          line,
+          'unparsable-coordinate',
+          lat === undefined ? 'latitude ddmm.mmmm with N or S' : 'longitude dddmm.mmmm with E or W',
+          quote(lat === undefined ? `${fields.get(3)},${fields.get(4)}` : `${fields.get(5)},${fields.get(6)}`),
+        ),
+      );
+      return;
+    }
+    pushEvent(reject(line, 'unparsable-time', 'an RMC date ddmmyy in field 9', quote(fields.get(9)), 10));
+  };
+  /**
+   * HDG: magnetic heading plus deviation and variation, each a number with E or W. Fields are read
+   * in place; a field that is empty, not a number or not finite leaves the heading unused, as
+   * `Number` on the copied field did.
+   */
+  const readHdg = (): void => {
+    const magnetic = fields.number(1);
+    if (Number.isNaN(magnetic)) return;
+    if (fields.isEmpty(4)) {
+      magneticWithoutVariation++;
+      return;
+    }
+    const deviation = fields.isEmpty(2) ? 0 : fields.number(2) * (fields.letter(3) === 87 /* W */ ? -1 : 1);
+    // true = magnetic + deviation + variation, east positive (NMEA HDG; from memory)
+    const variation = fields.number(4) * (fields.letter(5) === 87 /* W */ ? -1 : 1);
+    const heading = magnetic + deviation + variation;
+    if (Number.isFinite(heading)) attachHeading(normaliseAzimuthDeg(heading));
+  };
+  /** ZDA: the date for the fixes around it, or an `unparsable-time` rejection. */
+  const readZda = (src: string, at: number, to: number, line: number): void => {
+    const tod = parseTimeOfDayIn(src, fields.start(1), fields.end(1));
+    // the usual form (two-digit day and month, four-digit year) read in place
+    const d = fields.end(2) - fields.start(2) === 2 ? twoDigits(src, fields.start(2)) : -1;
+    const m = fields.end(3) - fields.start(3) === 2 ? twoDigits(src, fields.start(3)) : -1;
+    const y4 = fields.start(4);
+    const y =
+      fields.end(4) - y4 === 4 && twoDigits(src, y4) >= 0 && twoDigits(src, y4 + 2) >= 0
+        ? twoDigits(src, y4) * 100 + twoDigits(src, y4 + 2)
+        : -1;
+    if (tod !== undefined && d >= 1 && d <= 31 && m >= 1 && m <= 12 && y >= 0) {
+      nonFixRows++;
+      setDate(utcDayMs(y, m, d), tod);
+      return;
+    }
+    // anything else (one-digit day, white space around numbers) as `Number` reads it
+    const dn = Number(fields.get(2));
+    const mn = Number(fields.get(3));
+    const yn = Number(fields.get(4));
+    const valid = tod !== undefined && /^\d{4}$/.test(fields.get(4)) && dn >= 1 && dn <= 31 && mn >= 1 && mn <= 12;
+    if (!valid) {
+      pushEvent(
+        reject(line, 'unparsable-time', 'a ZDA with hhmmss.ss, day, month and 4-digit year', quote(src.slice(at, to))),
+      );
+      return;
+    }
+    nonFixRows++;
+    setDate(Date.UTC(yn, mn - 1, dn), tod);
+  };
+  const pullLine = pullLogLines(input.chunks);
+  for (let c = pullLine(); c !== undefined; c = pullLine()) {
+    readLine(c);
+    if (out.length === 0) continue;
+    if (nonFixRows > 0) {
+      yield { kind: 'non-fix-rows', count: nonFixRows };
+      nonFixRows = 0;
+    }
+    for (let k = 0; k < out.length; k++) yield out[k] as ReadEvent;
+    out.length = 0;
+    if (sealed) {
+      // the consumer has moved past the queued batch: its arrays can be filled again
+      batch.count = 0;
+      sealed = false;
     }
   }
   flush();
   for (let k = 0; k < out.length; k++) yield out[k] as ReadEvent;
   out.length = 0;
   if (!sealed && batch.count > 0) yield { kind: 'fix-batch', batch };
+  if (nonFixRows > 0) yield { kind: 'non-fix-rows', count: nonFixRows };
   for (const u of undated)
     yield reject(u.line, 'no-date', 'a date from an RMC or ZDA sentence somewhere in the log', 'none in the whole log');
   undated.length = 0;
@@ -644,6 +610,25 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
           },
   };
   yield { kind: 'end', rowCount, dialect: 'nmea-0183' };
+}
+
+/**
+ * Fixes in a log given as one string, estimated from its first 64 KiB: a fix is one time of day
+ * with a GGA, an RMC or both (upper-case addresses; an estimate only sizes the track's columns).
+ * `undefined` for chunked text or when the sample holds neither.
+ */
+function estimateFixCount(chunks: Iterable<string>): number | undefined {
+  const text = Array.isArray(chunks) && chunks.length === 1 ? (chunks[0] as unknown) : undefined;
+  if (typeof text !== 'string') return undefined;
+  const sample = text.slice(0, 65_536);
+  const count = (word: string): number => {
+    let n = 0;
+    for (let at = sample.indexOf(word); at >= 0; at = sample.indexOf(word, at + 1)) n++;
+    return n;
+  };
+  const fixes = Math.max(count('GGA,'), count('RMC,'));
+  if (fixes === 0) return undefined;
+  return sample.length === text.length ? fixes : Math.ceil((text.length / sample.length) * fixes * 1.02);
 }
 
 const HEX = '0123456789ABCDEF';
@@ -795,7 +780,21 @@ function parseNmeaDateIn(src: string, start: number, end: number): number | unde
   const yy = twoDigits(src, start + 4);
   if (d < 0 || m < 0 || yy < 0) return undefined;
   if (d < 1 || d > 31 || m < 1 || m > 12) return undefined;
-  return Date.UTC(yy >= 80 ? 1900 + yy : 2000 + yy, m - 1, d);
+  return utcDayMs(yy >= 80 ? 1900 + yy : 2000 + yy, m, d);
+}
+
+// The last day asked of `utcDayMs`: a log's sentences carry the same date for a whole day.
+let lastDayKey = -1;
+let lastDayMs = 0;
+
+/** `Date.UTC` of 00:00 on day `d` of month `m` (1-12) of year `y` (0-9999), computed once per run of equal days. */
+function utcDayMs(y: number, m: number, d: number): number {
+  const key = (y * 100 + m) * 100 + d;
+  if (key !== lastDayKey) {
+    lastDayMs = Date.UTC(y, m - 1, d);
+    lastDayKey = key;
+  }
+  return lastDayMs;
 }
 
 /** NMEA `(d)ddmm.mmmm` plus hemisphere letter to signed degrees; `undefined` when malformed or out of range. */
