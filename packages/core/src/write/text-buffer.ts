@@ -8,6 +8,19 @@ const ZERO = 48;
 const POWERS_OF_TEN = Array.from({ length: 23 }, (_, k) => 10 ** k);
 /** Below this, an integer has at most 15 digits: every such decimal maps to its own double. */
 const FIFTEEN_DIGITS = 1e15;
+/**
+ * Room that one number written by a digit fast path can take: a sign, then at most 15 digits and a
+ * point, or `0.` and up to 22 decimals (25), or 17 digits and a point (19). Each such write makes
+ * this much room once instead of checking the capacity per character.
+ */
+const NUMBER_ROOM = 32;
+
+/** The two ASCII digits of 0…99 at 2i and 2i + 1: integers are written two digits per division. */
+const DIGIT_PAIRS = new Uint8Array(200);
+for (let i = 0; i < 100; i++) {
+  DIGIT_PAIRS[2 * i] = 48 + Math.floor(i / 10);
+  DIGIT_PAIRS[2 * i + 1] = 48 + (i % 10);
+}
 
 // The bits of a double, to read its binary exponent; HIGH_WORD is the index of the word that
 // holds sign and exponent (1 on little-endian machines).
@@ -92,16 +105,23 @@ export class TextBuffer {
     // gives the same integer as toFixed's exact decimal rounding. Ties, huge values and NaN take
     // the general path.
     if (scaled < FIFTEEN_DIGITS && Math.abs(scaled - Math.floor(scaled) - 0.5) > scaled * 1e-15 + 1e-300) {
-      const n = Math.round(scaled);
-      if (n === 0) {
-        this.char(ZERO);
-        return;
+      // Rounding half up (as Math.round, but quicker); the same integer away from a half, and
+      // halves were left out above.
+      const n = Math.floor(scaled + 0.5);
+      this.#reserve(NUMBER_ROOM);
+      const b = this.#bytes;
+      let at = this.#length;
+      // Rounded to zero, a negative value is written `0` (formatDecimal drops the sign of -0).
+      if (n === 0) b[at++] = ZERO;
+      else {
+        if (value < 0) b[at++] = 45;
+        at = putDecimal(b, at, abs, n, decimals, scale as number);
       }
-      if (value < 0) this.char(45);
-      this.#decimal(n, decimals, scale as number);
+      this.#length = at;
       return;
     }
-    this.ascii(formatDecimal(value, decimals));
+    // formatDecimal gives no text for NaN and infinities.
+    if (Number.isFinite(value)) this.ascii(formatDecimal(value, decimals));
   }
 
   /**
@@ -110,6 +130,8 @@ export class TextBuffer {
    * with at most that many decimals is then found in one step.
    */
   shortest(value: number, likelyDecimals = 0): void {
+    // formatDecimal gives no text for NaN and infinities.
+    if (!Number.isFinite(value)) return;
     if (!this.#shortestDigits(value, likelyDecimals)) this.ascii(formatDecimal(value));
   }
 
@@ -123,30 +145,25 @@ export class TextBuffer {
     // Fixes come in time order, mostly within one day: the date part is reused (as formatIsoTime does).
     const intoDay = timeMs - this.#dayStartMs;
     if (intoDay >= 0 && intoDay < 86_400_000 && Number.isInteger(timeMs)) {
-      this.bytes(this.#dayPrefix);
-      // Below 86 400 000: 32-bit integer arithmetic (floating-point % is a slow call).
-      const ms = intoDay | 0;
-      const h = (ms / 3_600_000) | 0;
-      const m = ((ms / 60_000) | 0) % 60;
-      const s = ((ms / 1000) | 0) % 60;
-      const milli = ms % 1000;
-      this.#reserve(13);
+      const prefix = this.#dayPrefix;
+      this.#reserve(prefix.length + 13);
       const b = this.#bytes;
       let at = this.#length;
-      b[at++] = ZERO + ((h / 10) | 0);
-      b[at++] = ZERO + (h % 10);
+      for (let i = 0; i < prefix.length; i++) b[at++] = prefix[i] as number;
+      // Below 86 400 000: 32-bit integer arithmetic (floating-point % is a slow call).
+      const ms = intoDay | 0;
+      const seconds = (ms / 1000) | 0;
+      const minutes = (seconds / 60) | 0;
+      const hours = (minutes / 60) | 0;
+      at = putPair(b, at, hours);
       b[at++] = 58;
-      b[at++] = ZERO + ((m / 10) | 0);
-      b[at++] = ZERO + (m % 10);
+      at = putPair(b, at, minutes - hours * 60);
       b[at++] = 58;
-      b[at++] = ZERO + ((s / 10) | 0);
-      b[at++] = ZERO + (s % 10);
+      at = putPair(b, at, seconds - minutes * 60);
       b[at++] = 46;
-      b[at++] = ZERO + ((milli / 100) | 0);
-      b[at++] = ZERO + (((milli / 10) | 0) % 10);
-      b[at++] = ZERO + (milli % 10);
-      b[at++] = 90;
-      this.#length = at;
+      putDigits(b, at + 3, ms - seconds * 1000, 3);
+      b[at + 3] = 90;
+      this.#length = at + 4;
       return;
     }
     const iso = formatIsoTime(timeMs);
@@ -155,6 +172,18 @@ export class TextBuffer {
       this.#dayPrefix = encoder.encode(iso.slice(0, 11));
     }
     this.ascii(iso);
+  }
+
+  /**
+   * Makes room for at least `byteCount` more bytes in one step: a writer that can guess its size
+   * saves the buffer doubling (and copying everything) several times over. Writes nothing.
+   */
+  makeRoom(byteCount: number): void {
+    const needed = this.#length + Math.max(0, Math.ceil(byteCount));
+    if (needed <= this.#bytes.length) return;
+    const bytes = new Uint8Array(needed);
+    bytes.set(this.#bytes.subarray(0, this.#length));
+    this.#bytes = bytes;
   }
 
   /** Bytes written so far. */
@@ -217,10 +246,15 @@ export class TextBuffer {
   // at most 15 digits, gives it back exactly; false (nothing written) otherwise.
   #digitsWith(value: number, abs: number, k: number): boolean {
     const scale = POWERS_OF_TEN[k] as number;
-    const n = Math.round(abs * scale);
+    // Math.round, but quicker; rounding differently near a half at worst fails the check below
+    // (which only the right n passes), sending the value to the general path.
+    const n = Math.floor(abs * scale + 0.5);
     if (!(n < FIFTEEN_DIGITS) || n / scale !== abs) return false;
-    if (value < 0) this.char(45);
-    this.#decimal(n, k, scale);
+    this.#reserve(NUMBER_ROOM);
+    const b = this.#bytes;
+    let at = this.#length;
+    if (value < 0) b[at++] = 45;
+    this.#length = putDecimal(b, at, abs, n, k, scale);
     return true;
   }
 
@@ -287,44 +321,10 @@ export class TextBuffer {
     }
     const highDigits = digits - 9;
     if (high < (POWERS_OF_TEN[highDigits - 1] as number) || high >= (POWERS_OF_TEN[highDigits] as number)) return false;
-    this.#padded(high, highDigits);
-    this.#padded(rest, 9);
+    this.#reserve(digits);
+    this.#length = putPadded(this.#bytes, this.#length, high, highDigits);
+    this.#length = putPadded(this.#bytes, this.#length, rest, 9);
     return true;
-  }
-
-  // Writes n·10^-decimals (n a non-negative integer below 10^15) with trailing zeros dropped.
-  #decimal(n: number, decimals: number, scale: number): void {
-    const whole = Math.floor(n / scale);
-    const fraction = n - whole * scale;
-    this.#padded(whole, 1);
-    if (fraction === 0) return;
-    this.char(46);
-    this.#padded(fraction, decimals);
-    // The fraction is not zero, so this stops at a digit before the point.
-    while (this.#bytes[this.#length - 1] === ZERO) this.#length--;
-  }
-
-  // Writes a non-negative integer below 10^15 with at least `width` digits (zeros in front).
-  #padded(n: number, width: number): void {
-    if (n >= 1e9) {
-      // Two parts below 10^9 each, so the digits come from 32-bit integer arithmetic.
-      const high = Math.floor(n / 1e9);
-      this.#padded(high, width - 9);
-      this.#padded(n - high * 1e9, 9);
-      return;
-    }
-    let count = Math.max(width, 1);
-    while (count < 9 && (POWERS_OF_TEN[count] as number) <= n) count++;
-    this.#reserve(count);
-    const b = this.#bytes;
-    let at = this.#length + count;
-    this.#length = at;
-    let rest = n | 0;
-    for (let i = 0; i < count; i++) {
-      const q = (rest / 10) | 0;
-      b[--at] = ZERO + rest - q * 10;
-      rest = q;
-    }
   }
 
   #reserve(extra: number): void {
@@ -335,4 +335,103 @@ export class TextBuffer {
     bytes.set(this.#bytes.subarray(0, this.#length));
     this.#bytes = bytes;
   }
+}
+
+// The digit writers below put bytes at `at` with no capacity check (their callers make room
+// first) and return where the text ends.
+
+// Writes 0…99 as two digits.
+function putPair(b: Uint8Array, at: number, n: number): number {
+  b[at] = DIGIT_PAIRS[2 * n] as number;
+  b[at + 1] = DIGIT_PAIRS[2 * n + 1] as number;
+  return at + 2;
+}
+
+// Writes the four digits of n (an integer in [0, 10^4)) at `at`: two independent pairs.
+function putFour(b: Uint8Array, at: number, n: number): void {
+  const high = (n / 100) | 0;
+  const low = n - high * 100;
+  b[at] = DIGIT_PAIRS[2 * high] as number;
+  b[at + 1] = DIGIT_PAIRS[2 * high + 1] as number;
+  b[at + 2] = DIGIT_PAIRS[2 * low] as number;
+  b[at + 3] = DIGIT_PAIRS[2 * low + 1] as number;
+}
+
+// Writes the `count` digits of n (an integer in [0, 10^count), count <= 9, so 32-bit arithmetic
+// is exact) ending just before `end`, zeros in front: four digits per division by 10^4, then a
+// pair and a single digit (fewer dependent divisions than one digit at a time).
+function putDigits(b: Uint8Array, end: number, n: number, count: number): void {
+  let at = end;
+  let rest = n | 0;
+  let left = count;
+  while (left >= 4) {
+    const q = (rest / 10_000) | 0;
+    at -= 4;
+    putFour(b, at, rest - q * 10_000);
+    rest = q;
+    left -= 4;
+  }
+  if (left >= 2) {
+    const q = (rest / 100) | 0;
+    at = putPair(b, at - 2, rest - q * 100) - 2;
+    rest = q;
+    left -= 2;
+  }
+  if (left === 1) b[at - 1] = ZERO + rest;
+}
+
+// How many digits an integer in [0, 10^9) has (1 for zero): a few comparisons, fewest for the
+// short whole parts of degrees and depths.
+function digitCount(n: number): number {
+  if (n < 1e4) return n < 100 ? (n < 10 ? 1 : 2) : n < 1e3 ? 3 : 4;
+  if (n < 1e6) return n < 1e5 ? 5 : 6;
+  return n < 1e7 ? 7 : n < 1e8 ? 8 : 9;
+}
+
+// Writes a non-negative integer below 10^15.
+function putInteger(b: Uint8Array, at: number, n: number): number {
+  if (n < 1e9) {
+    const count = digitCount(n);
+    putDigits(b, at + count, n, count);
+    return at + count;
+  }
+  // Two parts, the low one of exactly 9 digits, each below 10^9 (32-bit integer arithmetic).
+  const high = Math.floor(n / 1e9);
+  const end = putInteger(b, at, high);
+  putDigits(b, end + 9, n - high * 1e9, 9);
+  return end + 9;
+}
+
+// Writes an integer in [0, 10^width) as exactly `width` digits (zeros in front).
+function putPadded(b: Uint8Array, at: number, n: number, width: number): number {
+  if (width <= 9) {
+    putDigits(b, at + width, n, width);
+    return at + width;
+  }
+  const high = Math.floor(n / 1e9);
+  const end = putPadded(b, at, high, width - 9);
+  putDigits(b, end + 9, n - high * 1e9, 9);
+  return end + 9;
+}
+
+// Writes abs rounded to `decimals` places, given n, its digits (abs·10^decimals rounded to an
+// integer below 10^15, so that n·10^-decimals lies within half a unit of the last place, and
+// scale = 10^decimals), with trailing zeros dropped.
+function putDecimal(b: Uint8Array, at: number, abs: number, n: number, decimals: number, scale: number): number {
+  // The whole part without a division: n lies in [whole·scale, (whole + 1)·scale] (all exact
+  // integers below 2^53), the top end when rounding carried into the next whole number.
+  let whole = Math.floor(abs);
+  let fraction = n - whole * scale;
+  if (fraction >= scale) {
+    whole++;
+    fraction -= scale;
+  }
+  const end = putInteger(b, at, whole);
+  if (fraction === 0) return end;
+  b[end] = 46;
+  // All the decimals are written, then the trailing zeros taken back (the fraction is not zero, so
+  // this stops at a digit after the point).
+  let last = putPadded(b, end + 1, fraction, decimals);
+  while (b[last - 1] === ZERO) last--;
+  return last;
 }

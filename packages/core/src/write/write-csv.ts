@@ -40,6 +40,9 @@ const OPTIONAL_COLUMNS: ReadonlyArray<readonly [FixColumnName, string]> = [
 /** Optional columns in WGS 84 degrees, rounded like `lat`/`lon`. */
 const DEGREE_COLUMNS: ReadonlySet<FixColumnName> = new Set(['surfaceLatDeg', 'surfaceLonDeg']);
 
+/** In a column's decimals: the value's shortest round-trip digits instead of fixed decimals. */
+const SHORTEST = -1;
+
 /** Logged values rarely carry more than three decimals (a guess that speeds the digits up, never changes them). */
 const LIKELY_DECIMALS = 3;
 
@@ -107,6 +110,8 @@ function buildCsv(input: WriteInput, options: WriteCsvOptions): TextBuffer {
   const out = new TextBuffer();
   out.text(`${header.map((h) => quote(h, sep)).join(sep)}\r\n`);
   const sepCode = sep.charCodeAt(0);
+  const headerBytes = out.byteLength;
+  let rowsWritten = 0;
   for (const track of input.tracks) {
     const c = track.columns;
     const projected = reprojection?.forward(c.lonDeg, c.latDeg);
@@ -114,30 +119,46 @@ function buildCsv(input: WriteInput, options: WriteCsvOptions): TextBuffer {
     // Numbers never need quoting (digits, '-', '.'); the track's own fields are quoted once.
     const trackFields = `${quote(track.id, sep)}${sep}${quote(track.role, sep)}${sep}`;
     const nameField = `${sep}${quote(track.name ?? '', sep)}${sep}`;
-    const optional = columns.map(([column]) => c[column]);
-    // The surface unit's degrees are written like lat/lon (degDecimals); other values in their shortest form.
-    const inDegrees = columns.map(([column]) => DEGREE_COLUMNS.has(column));
+    // The per-fix columns after lat/lon, each with its decimals worked out once: the CRS
+    // coordinates and the surface unit's degrees are rounded like lat/lon, other values written
+    // in their shortest form (SHORTEST).
+    const values: Float64Array[] = [];
+    const decimals: number[] = [];
+    if (projected) {
+      values.push(projected.x, projected.y);
+      decimals.push(crsDecimals, crsDecimals);
+    }
+    for (const [column] of columns) {
+      values.push(c[column]);
+      decimals.push(DEGREE_COLUMNS.has(column) ? degDecimals : SHORTEST);
+    }
+    const lat = c.latDeg;
+    const lon = c.lonDeg;
+    const timeMs = c.timeMs;
     for (let s = 0; s < ranges.length; s++) {
       const [start, end] = ranges[s] as [number, number];
       const segmentFields = TextBuffer.encode(`${trackFields}${s + 1}${nameField}`);
+      // Room for the whole segment at once, guessed from the rows so far (the first time from
+      // typical field widths), so the buffer grows about once per file instead of doubling often.
+      const rowBytes =
+        rowsWritten > 0
+          ? ((out.byteLength - headerBytes) / rowsWritten) * 1.125
+          : segmentFields.length + 56 + 12 * values.length;
+      out.makeRoom((end - start) * rowBytes);
+      rowsWritten += end - start;
       for (let i = start; i < end; i++) {
         out.bytes(segmentFields);
-        out.isoTime(c.timeMs[i] as number);
+        out.isoTime(timeMs[i] as number);
         out.char(sepCode);
-        out.fixed(c.latDeg[i] as number, degDecimals);
+        out.fixed(lat[i] as number, degDecimals);
         out.char(sepCode);
-        out.fixed(c.lonDeg[i] as number, degDecimals);
-        if (projected) {
+        out.fixed(lon[i] as number, degDecimals);
+        for (let k = 0; k < values.length; k++) {
           out.char(sepCode);
-          out.fixed(projected.x[i] as number, crsDecimals);
-          out.char(sepCode);
-          out.fixed(projected.y[i] as number, crsDecimals);
-        }
-        for (let k = 0; k < optional.length; k++) {
-          out.char(sepCode);
-          const value = (optional[k] as ArrayLike<number>)[i] as number;
-          if (inDegrees[k]) out.fixed(value, degDecimals);
-          else out.shortest(value, LIKELY_DECIMALS);
+          const value = (values[k] as Float64Array)[i] as number;
+          const places = decimals[k] as number;
+          if (places === SHORTEST) out.shortest(value, LIKELY_DECIMALS);
+          else out.fixed(value, places);
         }
         out.char(13);
         out.char(10);
