@@ -6,12 +6,13 @@ import { collectReadEvents } from './collect-read-events.js';
 import { decodeLogText } from './decode-log-text.js';
 import type { LogInput, LogReadResult, ReadOptions } from './log-read-result.js';
 import { parseCoordinate } from './parse-coordinate.js';
+import { parseDecimal } from './parse-csv-row-fast.js';
 import { LogTimeParser } from './parse-log-time.js';
 import type { LogTextInput } from './read-csv.js';
 import { refusedLog } from './read-csv.js';
 import type { FixBatch, ReadEvent } from './read-event.js';
 import { findForbiddenXml } from './refuse-forbidden-xml.js';
-import { scanGpxFast } from './scan-gpx-fast.js';
+import { scanGpxFast, type XmlElementHandlers } from './scan-gpx-fast.js';
 
 /** Text fed to the XML parser at a time: keeps the event queue, not the file, in memory. */
 const FEED_CHARS = 1 << 20;
@@ -40,6 +41,11 @@ const OPTIONAL_KEYS = [
   'surfaceHeading',
 ] as const;
 type OptionalKey = (typeof OPTIONAL_KEYS)[number];
+/** Where a point's leaf element goes on the point path: an index into `OPTIONAL_KEYS`, or one of these. */
+const SLOT_TIME = -1;
+const SLOT_IGNORED = -2;
+/** A leaf the point path leaves to the general one (a point's own name: the general path ends the point there). */
+const SLOT_DECLINE = -3;
 const SURFACE_TRACK = /surface|ship|vessel|boat|topside/i;
 const UNDERWATER_HINT = /\b(rov|auv|vehicle|diver|dive|transponder|beacon|underwater)\b/i;
 
@@ -140,16 +146,14 @@ function singleChunk(chunks: Iterable<string>): string | undefined {
 }
 
 /** What the element handlers gathered, and the handlers themselves (driven by saxes or by `scanGpxFast`). */
-interface GpxHandlers {
+interface GpxHandlers extends XmlElementHandlers {
   queue: ReadEvent[];
   rowCount: number;
   version: string;
   failed: boolean;
   trackStats: TrackStats[];
   reject: (line: number, code: Rejection['code'], expected: string, found: string, column?: number) => void;
-  open: (name: string, attributes: Record<string, string>, line: number, column: number) => void;
-  text: (t: string) => void;
-  close: (name: string) => void;
+  point: NonNullable<XmlElementHandlers['point']>;
   /** Puts the fixes gathered so far into `queue` (before it is handed on). */
   flushFixes: () => void;
 }
@@ -200,7 +204,8 @@ function createGpxHandlers(file: string, options: ReadOptions): GpxHandlers {
   const flushFixes = (): void => {
     if (batch.count === 0) return;
     queue.push({ kind: 'fix-batch', batch });
-    batch = newGpxBatch(GPX_BATCH_FIRST);
+    // as large as the last one grew: a long track fills batches of the largest size one after another
+    batch = newGpxBatch(batch.lines.length);
   };
   const pushEvent = (event: ReadEvent): void => {
     flushFixes();
@@ -350,27 +355,12 @@ function createGpxHandlers(file: string, options: ReadOptions): GpxHandlers {
       }
       values[k] = n;
     }
-    const numbers = {
-      ele: values[0] as number,
-      depth: values[1] as number,
-      heading: values[2] as number,
-      speed: values[3] as number,
-      range: values[4] as number,
-      bearing: values[5] as number,
-      quality: values[6] as number,
-      surfaceLat: values[7] as number,
-      surfaceLon: values[8] as number,
-      surfaceHeading: values[9] as number,
-    };
-    let depthM = Number.NaN;
-    if (!Number.isNaN(numbers.depth)) depthM = numbers.depth;
-    else if (!Number.isNaN(numbers.ele)) depthM = -numbers.ele + 0;
     if (p.kind === 'wpt') {
       const waypoint: Waypoint = {
         name: p.name ?? `waypoint ${++waypointCount}`,
         latDeg: lat.deg,
         lonDeg: lon.deg,
-        depthM,
+        depthM: depthOf(values),
         timeMs,
         sourceLine: p.line,
       };
@@ -378,34 +368,129 @@ function createGpxHandlers(file: string, options: ReadOptions): GpxHandlers {
       pushEvent({ kind: 'waypoint', waypoint });
       return;
     }
+    storeFix(p.line, lat.deg, lon.deg, timeMs, values);
+  };
+  /** A track or route point's values (`values` in `OPTIONAL_KEYS` order, `NaN` for none) into the track's counts and the batch. */
+  const storeFix = (line: number, latDeg: number, lonDeg: number, timeMs: number, values: Float64Array): void => {
+    const ele = values[0] as number;
+    const depth = values[1] as number;
     if (track !== undefined) {
-      if (!Number.isNaN(numbers.depth)) track.depthCount++;
-      else if (!Number.isNaN(numbers.ele)) {
+      if (!Number.isNaN(depth)) track.depthCount++;
+      else if (!Number.isNaN(ele)) {
         track.eleCount++;
-        if (numbers.ele > 0) track.elePositive++;
+        if (ele > 0) track.elePositive++;
       }
     }
+    const heading = values[2] as number;
+    const bearing = values[5] as number;
+    const surfaceLat = values[7] as number;
+    const surfaceLon = values[8] as number;
+    const surfaceHeading = values[9] as number;
     // into the batch's columns, `NaN` for what the point does not have (as a `Fix` without it)
     const i = reserveFix();
     const c = batch.columns as Required<FixBatch['columns']>;
     c.timeMs[i] = timeMs;
-    c.latDeg[i] = lat.deg;
-    c.lonDeg[i] = lon.deg;
-    c.depthM[i] = depthM;
-    c.headingDeg[i] = Number.isNaN(numbers.heading) ? Number.NaN : normaliseAzimuthDeg(numbers.heading);
-    c.speedMps[i] = numbers.speed;
-    c.slantRangeM[i] = numbers.range;
-    c.bearingDeg[i] = Number.isNaN(numbers.bearing) ? Number.NaN : normaliseAzimuthDeg(numbers.bearing);
-    c.quality[i] = numbers.quality;
-    c.surfaceLatDeg[i] = Math.abs(numbers.surfaceLat) <= 90 ? numbers.surfaceLat : Number.NaN;
-    c.surfaceLonDeg[i] = Math.abs(numbers.surfaceLon) <= 180 ? numbers.surfaceLon : Number.NaN;
-    c.surfaceHeadingDeg[i] = Number.isNaN(numbers.surfaceHeading)
-      ? Number.NaN
-      : normaliseAzimuthDeg(numbers.surfaceHeading);
-    batch.lines[i] = p.line;
+    c.latDeg[i] = latDeg;
+    c.lonDeg[i] = lonDeg;
+    c.depthM[i] = depthOf(values);
+    c.headingDeg[i] = Number.isNaN(heading) ? Number.NaN : normaliseAzimuthDeg(heading);
+    c.speedMps[i] = values[3] as number;
+    c.slantRangeM[i] = values[4] as number;
+    c.bearingDeg[i] = Number.isNaN(bearing) ? Number.NaN : normaliseAzimuthDeg(bearing);
+    c.quality[i] = values[6] as number;
+    c.surfaceLatDeg[i] = Math.abs(surfaceLat) <= 90 ? surfaceLat : Number.NaN;
+    c.surfaceLonDeg[i] = Math.abs(surfaceLon) <= 180 ? surfaceLon : Number.NaN;
+    c.surfaceHeadingDeg[i] = Number.isNaN(surfaceHeading) ? Number.NaN : normaliseAzimuthDeg(surfaceHeading);
+    batch.lines[i] = line;
     batch.count = i + 1;
   };
+  // The point path: a plain point (see `scanPlainPoint`) read straight from the text. It gives what
+  // `open`, `close` and `finishPoint` give for the same point: the same values (`parseDecimal` is
+  // `Number()` wherever it reads a number; the time goes through the same parser), the same leaf
+  // names by local name, the last of a repeated leaf. Anything else it declines before changing
+  // anything: a number `parseDecimal` does not read, a coordinate out of range, a time that does not
+  // parse, a track point without time, a point inside a point, a leaf named like a point. The general
+  // path then reads or rejects that point.
+  const pointValues = new Float64Array(OPTIONAL_KEYS.length);
+  const leafSlots = new LeafSlots();
+  state.point = (s, found, line) => {
+    if (point !== undefined) return false;
+    const latDeg = parseDecimal(s, found.latStart, found.latEnd);
+    const lonDeg = parseDecimal(s, found.lonStart, found.lonEnd);
+    if (!(Math.abs(latDeg) <= 90 && Math.abs(lonDeg) <= 180)) return false;
+    const values = pointValues;
+    for (let k = 0; k < values.length; k++) values[k] = Number.NaN;
+    let timeStart = -1;
+    let timeEnd = -1;
+    const names = found.leafNames;
+    const leafText = found.leafText;
+    for (let k = 0; k < found.leafCount; k++) {
+      const slot = leafSlots.slotOf(k, names[k] as string);
+      if (slot === SLOT_IGNORED) continue;
+      if (slot === SLOT_DECLINE) return false;
+      const start = leafText[2 * k] as number;
+      const end = leafText[2 * k + 1] as number;
+      if (slot === SLOT_TIME) {
+        timeStart = start;
+        timeEnd = end;
+      } else if (start === end) values[slot] = Number.NaN;
+      else {
+        const n = parseDecimal(s, start, end);
+        if (Number.isNaN(n)) return false;
+        values[slot] = n;
+      }
+    }
+    let timeMs = Number.NaN;
+    if (timeEnd > timeStart) {
+      const t = times.parseDateTime(s.slice(timeStart, timeEnd));
+      if (!t.ok) return false;
+      timeMs = t.timeMs;
+    } else if (found.kind === 'trkpt') return false;
+    text = '';
+    state.rowCount++;
+    openTrackIfNeeded();
+    storeFix(line, latDeg, lonDeg, timeMs, values);
+    return true;
+  };
   return state;
+}
+
+/** Depth from a point's values (`OPTIONAL_KEYS` order): the depth element's, else `ele` negated, else `NaN`. */
+function depthOf(values: Float64Array): number {
+  const depth = values[1] as number;
+  if (!Number.isNaN(depth)) return depth;
+  const ele = values[0] as number;
+  return Number.isNaN(ele) ? Number.NaN : -ele + 0;
+}
+
+/**
+ * The slots of a point's leaf elements by name (`SLOT_*` or an index into `OPTIONAL_KEYS`), the way
+ * `close` sorts them, remembered by position: a log repeats the same leaves point after point (and
+ * the scanner hands on the same name strings while the points keep one shape).
+ */
+class LeafSlots {
+  readonly #names: string[] = [];
+  readonly #slots: number[] = [];
+
+  /** The slot of leaf `k` of the point, named `name`. */
+  slotOf(k: number, name: string): number {
+    if (this.#names[k] === name) return this.#slots[k] as number;
+    const slot = leafSlot(localName(name));
+    this.#names[k] = name;
+    this.#slots[k] = slot;
+    return slot;
+  }
+}
+
+/** Where a point's leaf element with local name `local` goes, as `close` decides for a track or route point. */
+function leafSlot(local: string): number {
+  if (local === 'trkpt' || local === 'rtept' || local === 'wpt') return SLOT_DECLINE;
+  if (local === 'ele') return 0;
+  if (local === 'time') return SLOT_TIME;
+  // `name`, `desc` and `fix` are kept for waypoints only
+  if (local === 'name' || local === 'desc' || local === 'fix') return SLOT_IGNORED;
+  const key = extensionKey(local);
+  return key === undefined ? SLOT_IGNORED : OPTIONAL_KEYS.indexOf(key);
 }
 
 /** The events after the last element: notes on routes and doubtful elevations, then the row count. */
