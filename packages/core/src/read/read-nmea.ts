@@ -8,7 +8,7 @@ import { parseDecimal } from './parse-csv-row-fast.js';
 import { EARLIEST_TIME_MS, LATEST_TIME_MS, LogTimeParser } from './parse-log-time.js';
 import { type LogTextInput, refusedLog } from './read-csv.js';
 import type { FixBatch, ReadEvent } from './read-event.js';
-import { type LogLineCursor, pullLogLines } from './split-log-lines.js';
+import { MAX_LINE_CHARS, pullLogLines } from './split-log-lines.js';
 
 const DAY_MS = 86_400_000;
 const HALF_DAY_MS = 43_200_000;
@@ -275,14 +275,11 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
   };
   const fields = new NmeaFields();
   /**
-   * The hot path, outside the generator: a GGA or RMC sentence that makes or joins a fix without any
-   * finding. Returns false, having changed nothing but `fields`, for everything else (read below).
+   * The hot path: a GGA or RMC sentence (`at` its `$`, fields scanned into `fields`, `x` the XOR of
+   * its body) that makes or joins a fix without any finding. Returns false, having changed nothing,
+   * for everything else (read by `readSentence`).
    */
-  /** The checksum `readFixSentence` computed for the sentence it declined (its fields stay in `fields`). */
-  let scannedChecksum = 0;
-  const readFixSentence = (src: string, at: number, to: number, line: number): boolean => {
-    const x = fields.scan(src, at + 1, to);
-    scannedChecksum = x;
+  const readFixSentence = (src: string, at: number, to: number, line: number, x: number): boolean => {
     const star = fields.star;
     if (star >= 0 && hexByteAt(src, star + 1, to) !== x) return false;
     const addressStart = fields.start(0);
@@ -331,18 +328,16 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
    * Reads one line. Events go to `out` (handed on after the line); rows merged into a fix or not
    * used are only counted in `nonFixRows`, so they never break a batch of fixes.
    */
-  const readLine = (c: LogLineCursor): void => {
-    const line = c.line;
-    if (c.tooLongChars >= 0) {
+  const readLine = (src: string, start: number, end: number, line: number, tooLongChars: number): void => {
+    if (tooLongChars >= 0) {
       rowCount++;
       pushEvent(
-        reject(line, 'line-too-long', 'an NMEA sentence of at most 82 characters', `${c.tooLongChars} characters`),
+        reject(line, 'line-too-long', 'an NMEA sentence of at most 82 characters', `${tooLongChars} characters`),
       );
       return;
     }
-    const src = c.source;
-    let from = c.start;
-    let to = c.end;
+    let from = start;
+    let to = end;
     // trim white space at both ends without copying
     while (from < to && src.charCodeAt(from) <= 32) from++;
     while (to > from && src.charCodeAt(to - 1) <= 32) to--;
@@ -361,11 +356,16 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
       );
       return;
     }
+    readSentence(src, start, at, to, line, fields.scan(src, at + 1, to));
+  };
+  /**
+   * One sentence from its `$` or `!` at `at` to `to` (trimmed) on the line starting at `lineStart`,
+   * its fields already scanned and `x` the XOR of its body. Fields are read in place, copied only
+   * on rare paths.
+   */
+  const readSentence = (src: string, lineStart: number, at: number, to: number, line: number, x: number): void => {
     if (to - at + 2 > NMEA_MAX_SENTENCE) overLength++;
-    if (readFixSentence(src, at, to, line)) return;
-    // `readFixSentence` found the fields and the checksum in one pass; fields are then read in
-    // place, copied only on rare paths
-    const x = scannedChecksum;
+    if (readFixSentence(src, at, to, line, x)) return;
     const star = fields.star;
     if (star >= 0) {
       if (hexByteAt(src, star + 1, to) !== x) {
@@ -375,7 +375,7 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
             'bad-checksum',
             `checksum ${HEX[(x >> 4) & 15]}${HEX[x & 15]} (XOR of the characters between $ and *)`,
             `*${src.slice(star + 1, to)}`,
-            star - c.start + 1,
+            star - lineStart + 1,
           ),
         );
         return;
@@ -557,10 +557,8 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
     nonFixRows++;
     setDate(Date.UTC(yn, mn - 1, dn), tod);
   };
-  const pullLine = pullLogLines(input.chunks);
-  for (let c = pullLine(); c !== undefined; c = pullLine()) {
-    readLine(c);
-    if (out.length === 0) continue;
+  /** Hands on the events of the lines read so far (`out`), a count of non-fix rows first. */
+  const handOn = function* (): Generator<ReadEvent> {
     if (nonFixRows > 0) {
       yield { kind: 'non-fix-rows', count: nonFixRows };
       nonFixRows = 0;
@@ -571,6 +569,45 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
       // the consumer has moved past the queued batch: its arrays can be filled again
       batch.count = 0;
       sealed = false;
+    }
+  };
+  /**
+   * Reads the line of `text` starting at `pos` and returns where it ends (its CR or LF, or the end
+   * of the text). A line that starts with `$` is found while its fields are scanned, in one pass
+   * over the bytes of `window`; one that does not, ends in white space, is not ASCII or is longer
+   * than the window goes the general way (`readLine`), with the same lines as `pullLogLines`.
+   */
+  const readTextLine = (text: string, window: AsciiWindow, pos: number, line: number): number => {
+    if (text.charCodeAt(pos) === 36) {
+      let end = fields.scanLine(window, pos + 1);
+      if (end < 0 && window.moveTo(pos)) end = fields.scanLine(window, pos + 1);
+      if (end >= 0 && text.charCodeAt(end - 1) > 32) {
+        rowCount++;
+        readSentence(text, pos, pos, end, line, fields.checksum);
+        return end;
+      }
+    }
+    const end = findLineEnd(text, pos, text.length);
+    const length = end - pos;
+    readLine(text, pos, end, line, length > MAX_LINE_CHARS ? length : -1);
+    return end;
+  };
+  const whole = wholeText(input.chunks);
+  if (whole !== undefined) {
+    const n = whole.length;
+    const window = new AsciiWindow(whole);
+    let line = 0;
+    for (let pos = 0; pos < n; ) {
+      line++;
+      const end = readTextLine(whole, window, pos, line);
+      pos = end + (whole.charCodeAt(end) === 13 && whole.charCodeAt(end + 1) === 10 ? 2 : 1);
+      if (out.length > 0) yield* handOn();
+    }
+  } else {
+    const pullLine = pullLogLines(input.chunks);
+    for (let c = pullLine(); c !== undefined; c = pullLine()) {
+      readLine(c.source, c.start, c.end, c.line, c.tooLongChars);
+      if (out.length > 0) yield* handOn();
     }
   }
   flush();
@@ -612,14 +649,29 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
   yield { kind: 'end', rowCount, dialect: 'nmea-0183' };
 }
 
+/** The text when it comes as one string, else `undefined`. */
+function wholeText(chunks: Iterable<string>): string | undefined {
+  const text = Array.isArray(chunks) && chunks.length === 1 ? (chunks[0] as unknown) : undefined;
+  return typeof text === 'string' ? text : undefined;
+}
+
+/** Index of the first CR or LF in `text` from `from` (before `n`), else `n`. */
+function findLineEnd(text: string, from: number, n: number): number {
+  for (let i = from; i < n; i++) {
+    const c = text.charCodeAt(i);
+    if (c === 10 || c === 13) return i;
+  }
+  return n;
+}
+
 /**
  * Fixes in a log given as one string, estimated from its first 64 KiB: a fix is one time of day
  * with a GGA, an RMC or both (upper-case addresses; an estimate only sizes the track's columns).
  * `undefined` for chunked text or when the sample holds neither.
  */
 function estimateFixCount(chunks: Iterable<string>): number | undefined {
-  const text = Array.isArray(chunks) && chunks.length === 1 ? (chunks[0] as unknown) : undefined;
-  if (typeof text !== 'string') return undefined;
+  const text = wholeText(chunks);
+  if (text === undefined) return undefined;
   const sample = text.slice(0, 65_536);
   const count = (word: string): number => {
     let n = 0;
@@ -646,6 +698,43 @@ function hexByteAt(text: string, at: number, end: number): number {
   const high = hexDigit(text.charCodeAt(at));
   const low = hexDigit(text.charCodeAt(at + 1));
   return high < 0 || low < 0 ? -1 : high * 16 + low;
+}
+
+/** Characters of the window over the text that `NmeaFields.scanLine` reads as bytes. */
+const WINDOW_CHARS = 65_536;
+
+/**
+ * Part of an ASCII text as bytes (one per character, so positions are the text's): a typed array
+ * is read several times faster than `charCodeAt`. Turns itself off for good at the first character
+ * that is not ASCII; the reader then takes the general way.
+ */
+class AsciiWindow {
+  readonly text: string;
+  readonly bytes = new Uint8Array(WINDOW_CHARS);
+  /** `bytes[k]` is the character at `base + k` of the text, for `base + k < limit`. */
+  base = 0;
+  limit = 0;
+  #off = false;
+  readonly #encoder = new TextEncoder();
+
+  constructor(text: string) {
+    this.text = text;
+  }
+
+  /** Moves the window to start at `pos`; false when that gains nothing (already there) or the text is not ASCII. */
+  moveTo(pos: number): boolean {
+    if (this.#off || (pos === this.base && this.limit > pos)) return false;
+    const { read, written } = this.#encoder.encodeInto(this.text.slice(pos, pos + WINDOW_CHARS), this.bytes);
+    if (read !== written) {
+      // a character took more than one byte: positions in `bytes` are no longer the text's
+      this.#off = true;
+      this.limit = 0;
+      return false;
+    }
+    this.base = pos;
+    this.limit = pos + read;
+    return true;
+  }
 }
 
 /** The comma-separated fields of one sentence body, located in place; `get` copies one field. */
@@ -692,6 +781,56 @@ class NmeaFields {
     this.#end = end;
     this.#count = n;
     return x;
+  }
+
+  /** The XOR of the body found by the last `scanLine`. */
+  checksum = 0;
+
+  /**
+   * `scan` of a sentence whose end is not known yet, over the ASCII bytes of `window`: from text
+   * position `start` (after `$`) to the first CR or LF, or the end of the text. Returns that end,
+   * with the body's XOR in `checksum`; -1 when the window ends first (nothing is changed then).
+   */
+  scanLine(window: AsciiWindow, start: number): number {
+    const bytes = window.bytes;
+    const base = window.base;
+    const limit = window.limit;
+    const starts = this.#starts;
+    const max = starts.length;
+    let count = 1;
+    let x = 0;
+    let star = -1;
+    let xAtStar = 0;
+    let countAtStar = 0;
+    let i = start;
+    for (; i < limit; i++) {
+      const c = bytes[i - base] as number;
+      // one test for the common characters (digits, letters, `.`, `-`): all above `,`
+      if (c <= 44) {
+        if (c === 44) {
+          if (count < max) starts[count++] = i + 1;
+        } else if (c === 42) {
+          star = i;
+          xAtStar = x;
+          countAtStar = count;
+        } else if (c === 10 || c === 13) break;
+      }
+      x ^= c;
+    }
+    if (i >= limit && limit < window.text.length) return -1;
+    this.#src = window.text;
+    starts[0] = start;
+    this.star = star;
+    if (star >= 0) {
+      this.#end = star;
+      this.#count = countAtStar;
+      this.checksum = xAtStar;
+    } else {
+      this.#end = i;
+      this.#count = count;
+      this.checksum = x;
+    }
+    return i;
   }
 
   /** Index in the source where field `i` starts (the body's end for a missing field). */
@@ -815,32 +954,48 @@ function parseNmeaCoordinateIn(
   degDigits: number,
 ): number | undefined {
   const lat = degDigits === 2;
-  let dot = -1;
-  for (let i = start; i < end; i++) {
-    if (src.charCodeAt(i) === 46) {
-      dot = i;
-      break;
-    }
-  }
-  const intLength = dot < 0 ? end - start : dot - start;
-  if (intLength !== degDigits + 2 || end === dot + 1) return undefined;
   const south = hemisphere === 83; // S
   const west = hemisphere === 87; // W
   const valid = lat ? hemisphere === 78 || south : hemisphere === 69 || west; // N, E
-  if (!valid) return undefined;
+  // degrees and whole minutes: exactly degDigits + 2 digits before the decimal point, if any
+  const wholeEnd = start + degDigits + 2;
+  if (!valid || end < wholeEnd) return undefined;
   let deg = 0;
   for (let i = start; i < start + degDigits; i++) {
     const d = src.charCodeAt(i) - 48;
     if (d < 0 || d > 9) return undefined;
     deg = deg * 10 + d;
   }
-  const min = parseDecimal(src, start + degDigits, end);
-  const sign = src.charCodeAt(start + degDigits);
-  if (Number.isNaN(min) || min >= 60 || sign === 45 || sign === 43) return undefined;
+  const m1 = src.charCodeAt(wholeEnd - 2) - 48;
+  const m2 = src.charCodeAt(wholeEnd - 1) - 48;
+  if (m1 < 0 || m1 > 9 || m2 < 0 || m2 > 9) return undefined;
+  // minutes read in the same pass, as parseDecimal would: all digits as one integer over 10^fraction digits
+  let mantissa = m1 * 10 + m2;
+  let fractionDigits = 0;
+  if (end > wholeEnd) {
+    if (src.charCodeAt(wholeEnd) !== 46 || end === wholeEnd + 1) return undefined; // `.` and a fraction
+    for (let i = wholeEnd + 1; i < end; i++) {
+      const d = src.charCodeAt(i) - 48;
+      if (d < 0 || d > 9) return undefined;
+      mantissa = mantissa * 10 + d;
+    }
+    fractionDigits = end - wholeEnd - 1;
+  }
+  // over 15 digits the integer is not exact: the minutes as `Number` reads them
+  const min =
+    fractionDigits > 13
+      ? Number(src.slice(wholeEnd - 2, end))
+      : fractionDigits > 0
+        ? mantissa / (POW10[fractionDigits] as number)
+        : mantissa;
+  if (min >= 60) return undefined;
   const magnitude = deg + min / 60;
   if (magnitude > (lat ? 90 : 180)) return undefined;
   return south || west ? -magnitude : magnitude;
 }
+
+/** 10^k for k = 0..13 (the fraction digits of minutes read exactly), all exact in binary64. */
+const POW10 = Array.from({ length: 14 }, (_, k) => 10 ** k);
 
 function quote(text: string): string {
   return `"${text.length > 60 ? `${text.slice(0, 57)}...` : text}"`;
