@@ -44,7 +44,7 @@ type OptionalKey = (typeof OPTIONAL_KEYS)[number];
 /** Where a point's leaf element goes on the point path: an index into `OPTIONAL_KEYS`, or one of these. */
 const SLOT_TIME = -1;
 const SLOT_IGNORED = -2;
-/** A leaf the point path leaves to the general one (a point's own name: the general path ends the point there). */
+/** A leaf the point path leaves to the general one: one named like a point (the general path ends a point at its own name's end tag). */
 const SLOT_DECLINE = -3;
 const SURFACE_TRACK = /surface|ship|vessel|boat|topside/i;
 const UNDERWATER_HINT = /\b(rov|auv|vehicle|diver|dive|transponder|beacon|underwater)\b/i;
@@ -404,7 +404,7 @@ function createGpxHandlers(file: string, options: ReadOptions): GpxHandlers {
     batch.lines[i] = line;
     batch.count = i + 1;
   };
-  // The point path: a plain point (see `scanPlainPoint`) read straight from the text. It gives what
+  // The point path: a plain point (see `PlainPointScanner`) read straight from the text. It gives what
   // `open`, `close` and `finishPoint` give for the same point: the same values (`parseDecimal` is
   // `Number()` wherever it reads a number; the time goes through the same parser), the same leaf
   // names by local name, the last of a repeated leaf. Anything else it declines before changing
