@@ -84,9 +84,10 @@ export async function runFiles<R>(spec: RunFilesSpec<R>): Promise<FileRun<R> | n
   const pool = createTaskPool(Math.min(options.jobs, Math.max(1, inputs.length)));
   let results: Awaited<ReturnType<typeof runPool<InputFile, R>>>;
   try {
+    // Two tasks per worker thread in flight (see createTaskPool), so none idles between files.
     results = await runPool(
       inputs,
-      options.jobs,
+      2 * options.jobs,
       (input, index) =>
         spec.work(input, { run: (name, task) => dispatchFileTask(pool, out, input, name, task), out, index }),
       (done) => progress.update(done),

@@ -44,6 +44,9 @@ export function createTaskPool(jobs: number): TaskPool {
     minThreads: jobs,
     maxThreads: jobs,
     idleTimeout: 1000,
+    // A second task waits in each worker (the caller keeps two per thread in flight), so a thread
+    // goes on to its next file without waiting for the main thread to send one.
+    concurrentTasksPerWorker: 2,
     resourceLimits: { maxYoungGenerationSizeMb: YOUNG_GENERATION_MB },
   });
   return {
