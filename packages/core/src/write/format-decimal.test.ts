@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { escapeXml, formatDecimal, formatIsoTime } from './format-decimal.js';
+import { escapeXml, formatDecimal, formatIsoTime, roundHalfUp } from './format-decimal.js';
 
 describe('formatDecimal', () => {
   it('never uses exponent notation (xsd:decimal has none)', () => {
@@ -43,5 +43,63 @@ describe('formatIsoTime', () => {
     times.push(Date.UTC(2026, 5, 1), Date.UTC(2025, 0, 1), Date.UTC(2026, 5, 1) + 5);
     const wrong = times.filter((t) => formatIsoTime(t) !== new Date(t).toISOString());
     expect(wrong).toEqual([]);
+  });
+});
+
+describe('roundHalfUp', () => {
+  // Object.is tells -0 from 0 and matches NaN: the result must be Math.round's in every bit.
+  const differing = (values: number[]) => values.filter((x) => !Object.is(roundHalfUp(x), Math.round(x)));
+
+  it('gives Math.round at its edges: halves, the double just below a half, zeros, 2^52 and beyond, non-finite', () => {
+    const edges = [
+      0.5,
+      -0.5,
+      1.5,
+      -1.5,
+      2.5,
+      -2.5,
+      0.49999999999999994,
+      -0.49999999999999994,
+      0.5000000000000001,
+      -0.5000000000000001,
+      0,
+      -0,
+      1e-300,
+      -1e-300,
+      Number.MIN_VALUE,
+      -Number.MIN_VALUE,
+      2 ** 52 - 0.5,
+      -(2 ** 52) + 0.5,
+      2 ** 52,
+      2 ** 52 + 1,
+      -(2 ** 52) - 1,
+      2 ** 53 + 2,
+      4503599627370495.5,
+      -4503599627370495.5,
+      1e300,
+      Number.NaN,
+      Number.POSITIVE_INFINITY,
+      Number.NEGATIVE_INFINITY,
+    ];
+    expect(differing(edges)).toEqual([]);
+  });
+
+  it('gives Math.round for coordinates scaled to 7 decimals and for random magnitudes of either sign', () => {
+    let seed = 20260902;
+    const next = () => {
+      seed ^= seed << 13;
+      seed ^= seed >>> 17;
+      seed ^= seed << 5;
+      return (seed >>> 0) / 2 ** 32;
+    };
+    const values: number[] = [];
+    for (let i = 0; i < 50_000; i++) {
+      values.push((next() - 0.5) * 360 * 1e7);
+      values.push((next() - 0.5) * 10 ** Math.floor(next() * 40 - 20));
+      // Exact halves and their neighbours either side.
+      const half = Math.floor((next() - 0.5) * 1e6) + 0.5;
+      values.push(half, half + 2 ** -30, half - 2 ** -30);
+    }
+    expect(differing(values)).toEqual([]);
   });
 });

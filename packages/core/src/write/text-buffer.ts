@@ -4,6 +4,8 @@ const encoder = new TextEncoder();
 const decoder = new TextDecoder();
 
 const ZERO = 48;
+const COLON = 58;
+const POINT = 46;
 /** 10^k for k = 0…22, each exact in a double. */
 const POWERS_OF_TEN = Array.from({ length: 23 }, (_, k) => 10 ** k);
 /** Below this, an integer has at most 15 digits: every such decimal maps to its own double. */
@@ -15,12 +17,16 @@ const FIFTEEN_DIGITS = 1e15;
  */
 const NUMBER_ROOM = 32;
 
-/** The two ASCII digits of 0…99 at 2i and 2i + 1: integers are written two digits per division. */
-const DIGIT_PAIRS = new Uint8Array(200);
-for (let i = 0; i < 100; i++) {
-  DIGIT_PAIRS[2 * i] = 48 + Math.floor(i / 10);
-  DIGIT_PAIRS[2 * i + 1] = 48 + (i % 10);
-}
+/** In `separatedNumbers`' decimals: the value's shortest round-trip digits instead of fixed decimals. */
+export const SHORTEST_DIGITS = -1;
+
+// The ASCII digits of 0…99 and of 0…9999 (zeros in front), packed little-endian (first digit in
+// the low byte): integers are written two or four digits per division and per store.
+const DIGIT_PAIRS = new Uint16Array(100);
+const DIGIT_QUADS = new Uint32Array(10_000);
+for (let i = 0; i < 100; i++) DIGIT_PAIRS[i] = (ZERO + Math.floor(i / 10)) | ((ZERO + (i % 10)) << 8);
+for (let i = 0; i < 10_000; i++)
+  DIGIT_QUADS[i] = ((DIGIT_PAIRS[Math.floor(i / 100)] as number) | ((DIGIT_PAIRS[i % 100] as number) << 16)) >>> 0;
 
 // The bits of a double, to read its binary exponent; HIGH_WORD is the index of the word that
 // holds sign and exponent (1 on little-endian machines).
@@ -55,11 +61,14 @@ function productError(a: number, b: number, p: number): number {
  * and fall back to those functions otherwise.
  */
 export class TextBuffer {
-  #bytes = new Uint8Array(1 << 16);
+  #bytes: Uint8Array = new Uint8Array(1 << 16);
+  // The same bytes, for the digit writers' two- and four-byte stores.
+  #view: DataView = new DataView(this.#bytes.buffer);
   #length = 0;
-  // The UTC day of the last ISO time written (its start in ms and its `YYYY-MM-DDT` bytes).
+  // The UTC day of the last ISO time written: its start in ms and its `YYYY-MM-DDT` (and the
+  // next character, overwritten) packed little-endian in three words.
   #dayStartMs = Number.NaN;
-  #dayPrefix = new Uint8Array(0);
+  #dayWords = new Uint32Array(3);
 
   /** Encodes text once, to be written many times with `bytes`. */
   static encode(text: string): Uint8Array {
@@ -98,30 +107,10 @@ export class TextBuffer {
 
   /** Appends `formatDecimal(value, decimals)`: rounded to `decimals` places, trailing zeros dropped. */
   fixed(value: number, decimals: number): void {
-    const abs = Math.abs(value);
-    const scale = POWERS_OF_TEN[decimals];
-    const scaled = scale === undefined ? Number.NaN : abs * scale;
-    // The product has at most one rounding error (scale is exact); away from a half, rounding it
-    // gives the same integer as toFixed's exact decimal rounding. Ties, huge values and NaN take
-    // the general path.
-    if (scaled < FIFTEEN_DIGITS && Math.abs(scaled - Math.floor(scaled) - 0.5) > scaled * 1e-15 + 1e-300) {
-      // Rounding half up (as Math.round, but quicker); the same integer away from a half, and
-      // halves were left out above.
-      const n = Math.floor(scaled + 0.5);
-      this.#reserve(NUMBER_ROOM);
-      const b = this.#bytes;
-      let at = this.#length;
-      // Rounded to zero, a negative value is written `0` (formatDecimal drops the sign of -0).
-      if (n === 0) b[at++] = ZERO;
-      else {
-        if (value < 0) b[at++] = 45;
-        at = putDecimal(b, at, abs, n, decimals, scale as number);
-      }
-      this.#length = at;
-      return;
-    }
-    // formatDecimal gives no text for NaN and infinities.
-    if (Number.isFinite(value)) this.ascii(formatDecimal(value, decimals));
+    this.#reserve(NUMBER_ROOM);
+    const end = putFixed(this.#view, this.#length, value, decimals);
+    if (end >= 0) this.#length = end;
+    else this.ascii(formatDecimal(value, decimals));
   }
 
   /**
@@ -140,36 +129,89 @@ export class TextBuffer {
     if (!this.#shortestDigits(value, likelyDecimals)) this.ascii(String(value));
   }
 
+  /**
+   * Appends, for each column k, `separator` then `columns[k][row]`: as `fixed` writes it with
+   * `decimals[k]` places, or as `shortest` writes it (with `likelyDecimals`) where `decimals[k]`
+   * is `SHORTEST_DIGITS`. Built for table rows: the digit fast paths run in one loop over the
+   * row with one room check, the general paths as those methods take them.
+   */
+  separatedNumbers(
+    separator: number,
+    columns: readonly Float64Array[],
+    decimals: readonly number[],
+    row: number,
+    likelyDecimals: number,
+  ): void {
+    this.#reserve(columns.length * (NUMBER_ROOM + 1));
+    let view = this.#view;
+    let at = this.#length;
+    for (let k = 0; k < columns.length; k++) {
+      view.setUint8(at++, separator);
+      const value = (columns[k] as Float64Array)[row] as number;
+      const places = decimals[k] as number;
+      let end: number;
+      if (places !== SHORTEST_DIGITS) end = putFixed(view, at, value, places);
+      else {
+        const abs = Math.abs(value);
+        // As shortest does: no text for NaN and infinities, `0` for either zero, the likely
+        // decimals first; anything else (end -1) takes the general path.
+        if (!(abs < Number.POSITIVE_INFINITY)) end = at;
+        else if (abs === 0) {
+          view.setUint8(at, ZERO);
+          end = at + 1;
+        } else if (abs >= 1e-6 && abs < FIFTEEN_DIGITS && likelyDecimals > 0)
+          end = putWithDecimals(view, at, value, abs, likelyDecimals);
+        else end = -1;
+      }
+      if (end >= 0) {
+        at = end;
+        continue;
+      }
+      this.#length = at;
+      if (places !== SHORTEST_DIGITS) this.ascii(formatDecimal(value, places));
+      else this.shortest(value, likelyDecimals);
+      // The general path may have used the room made above (or moved the buffer): make it again.
+      this.#reserve((columns.length - k) * (NUMBER_ROOM + 1));
+      view = this.#view;
+      at = this.#length;
+    }
+    this.#length = at;
+  }
+
   /** Appends `formatIsoTime(timeMs)` (nothing for `NaN`). */
   isoTime(timeMs: number): void {
     // Fixes come in time order, mostly within one day: the date part is reused (as formatIsoTime does).
     const intoDay = timeMs - this.#dayStartMs;
     if (intoDay >= 0 && intoDay < 86_400_000 && Number.isInteger(timeMs)) {
-      const prefix = this.#dayPrefix;
-      this.#reserve(prefix.length + 13);
-      const b = this.#bytes;
-      let at = this.#length;
-      for (let i = 0; i < prefix.length; i++) b[at++] = prefix[i] as number;
+      this.#reserve(24);
+      const view = this.#view;
+      const at = this.#length;
+      // `YYYY-MM-DDT` in three four-byte stores (the last byte is overwritten just after).
+      view.setUint32(at, this.#dayWords[0] as number, true);
+      view.setUint32(at + 4, this.#dayWords[1] as number, true);
+      view.setUint32(at + 8, this.#dayWords[2] as number, true);
       // Below 86 400 000: 32-bit integer arithmetic (floating-point % is a slow call).
       const ms = intoDay | 0;
       const seconds = (ms / 1000) | 0;
       const minutes = (seconds / 60) | 0;
       const hours = (minutes / 60) | 0;
-      at = putPair(b, at, hours);
-      b[at++] = 58;
-      at = putPair(b, at, minutes - hours * 60);
-      b[at++] = 58;
-      at = putPair(b, at, seconds - minutes * 60);
-      b[at++] = 46;
-      putDigits(b, at + 3, ms - seconds * 1000, 3);
-      b[at + 3] = 90;
-      this.#length = at + 4;
+      view.setUint32(at + 11, (DIGIT_PAIRS[hours] as number) | (COLON << 16), true);
+      view.setUint32(at + 14, (DIGIT_PAIRS[minutes - hours * 60] as number) | (COLON << 16), true);
+      view.setUint16(at + 17, DIGIT_PAIRS[seconds - minutes * 60] as number, true);
+      // `.mmm`: the milliseconds' four digits (`0mmm`) with the point in place of the leading zero.
+      view.setUint32(at + 19, ((DIGIT_QUADS[ms - seconds * 1000] as number) & ~0xff) | POINT, true);
+      view.setUint8(at + 23, 90);
+      this.#length = at + 24;
       return;
     }
     const iso = formatIsoTime(timeMs);
     if (iso.length === 24 && Number.isInteger(timeMs)) {
       this.#dayStartMs = timeMs - (((timeMs % 86_400_000) + 86_400_000) % 86_400_000);
-      this.#dayPrefix = encoder.encode(iso.slice(0, 11));
+      for (let word = 0; word < 3; word++) {
+        let packed = 0;
+        for (let i = 3; i >= 0; i--) packed = packed * 256 + (iso.charCodeAt(4 * word + i) & 0xff);
+        this.#dayWords[word] = packed;
+      }
     }
     this.ascii(iso);
   }
@@ -181,9 +223,7 @@ export class TextBuffer {
   makeRoom(byteCount: number): void {
     const needed = this.#length + Math.max(0, Math.ceil(byteCount));
     if (needed <= this.#bytes.length) return;
-    const bytes = new Uint8Array(needed);
-    bytes.set(this.#bytes.subarray(0, this.#length));
-    this.#bytes = bytes;
+    this.#moveTo(new Uint8Array(needed));
   }
 
   /** Bytes written so far. */
@@ -245,16 +285,10 @@ export class TextBuffer {
   // Writes the value with k decimals (trailing zeros dropped) when the nearest such decimal, of
   // at most 15 digits, gives it back exactly; false (nothing written) otherwise.
   #digitsWith(value: number, abs: number, k: number): boolean {
-    const scale = POWERS_OF_TEN[k] as number;
-    // Math.round, but quicker; rounding differently near a half at worst fails the check below
-    // (which only the right n passes), sending the value to the general path.
-    const n = Math.floor(abs * scale + 0.5);
-    if (!(n < FIFTEEN_DIGITS) || n / scale !== abs) return false;
     this.#reserve(NUMBER_ROOM);
-    const b = this.#bytes;
-    let at = this.#length;
-    if (value < 0) b[at++] = 45;
-    this.#length = putDecimal(b, at, abs, n, k, scale);
+    const end = putWithDecimals(this.#view, this.#length, value, abs, k);
+    if (end < 0) return false;
+    this.#length = end;
     return true;
   }
 
@@ -322,8 +356,8 @@ export class TextBuffer {
     const highDigits = digits - 9;
     if (high < (POWERS_OF_TEN[highDigits - 1] as number) || high >= (POWERS_OF_TEN[highDigits] as number)) return false;
     this.#reserve(digits);
-    this.#length = putPadded(this.#bytes, this.#length, high, highDigits);
-    this.#length = putPadded(this.#bytes, this.#length, rest, 9);
+    this.#length = putPadded(this.#view, this.#length, high, highDigits);
+    this.#length = putPadded(this.#view, this.#length, rest, 9);
     return true;
   }
 
@@ -331,53 +365,42 @@ export class TextBuffer {
     if (this.#length + extra <= this.#bytes.length) return;
     let size = this.#bytes.length * 2;
     while (size < this.#length + extra) size *= 2;
-    const bytes = new Uint8Array(size);
+    this.#moveTo(new Uint8Array(size));
+  }
+
+  // Carries what was written over to a larger buffer.
+  #moveTo(bytes: Uint8Array): void {
     bytes.set(this.#bytes.subarray(0, this.#length));
     this.#bytes = bytes;
+    this.#view = new DataView(bytes.buffer);
   }
 }
 
 // The digit writers below put bytes at `at` with no capacity check (their callers make room
 // first) and return where the text ends.
 
-// Writes 0…99 as two digits.
-function putPair(b: Uint8Array, at: number, n: number): number {
-  b[at] = DIGIT_PAIRS[2 * n] as number;
-  b[at + 1] = DIGIT_PAIRS[2 * n + 1] as number;
-  return at + 2;
-}
-
-// Writes the four digits of n (an integer in [0, 10^4)) at `at`: two independent pairs.
-function putFour(b: Uint8Array, at: number, n: number): void {
-  const high = (n / 100) | 0;
-  const low = n - high * 100;
-  b[at] = DIGIT_PAIRS[2 * high] as number;
-  b[at + 1] = DIGIT_PAIRS[2 * high + 1] as number;
-  b[at + 2] = DIGIT_PAIRS[2 * low] as number;
-  b[at + 3] = DIGIT_PAIRS[2 * low + 1] as number;
-}
-
 // Writes the `count` digits of n (an integer in [0, 10^count), count <= 9, so 32-bit arithmetic
-// is exact) ending just before `end`, zeros in front: four digits per division by 10^4, then a
-// pair and a single digit (fewer dependent divisions than one digit at a time).
-function putDigits(b: Uint8Array, end: number, n: number, count: number): void {
+// is exact) ending just before `end`, zeros in front: four digits per division by 10^4 and per
+// store, then a pair and a single digit.
+function putDigits(view: DataView, end: number, n: number, count: number): void {
   let at = end;
   let rest = n | 0;
   let left = count;
   while (left >= 4) {
     const q = (rest / 10_000) | 0;
     at -= 4;
-    putFour(b, at, rest - q * 10_000);
+    view.setUint32(at, DIGIT_QUADS[rest - q * 10_000] as number, true);
     rest = q;
     left -= 4;
   }
   if (left >= 2) {
     const q = (rest / 100) | 0;
-    at = putPair(b, at - 2, rest - q * 100) - 2;
+    at -= 2;
+    view.setUint16(at, DIGIT_PAIRS[rest - q * 100] as number, true);
     rest = q;
     left -= 2;
   }
-  if (left === 1) b[at - 1] = ZERO + rest;
+  if (left === 1) view.setUint8(at - 1, ZERO + rest);
 }
 
 // How many digits an integer in [0, 10^9) has (1 for zero): a few comparisons, fewest for the
@@ -389,35 +412,70 @@ function digitCount(n: number): number {
 }
 
 // Writes a non-negative integer below 10^15.
-function putInteger(b: Uint8Array, at: number, n: number): number {
+function putInteger(view: DataView, at: number, n: number): number {
   if (n < 1e9) {
     const count = digitCount(n);
-    putDigits(b, at + count, n, count);
+    putDigits(view, at + count, n, count);
     return at + count;
   }
   // Two parts, the low one of exactly 9 digits, each below 10^9 (32-bit integer arithmetic).
   const high = Math.floor(n / 1e9);
-  const end = putInteger(b, at, high);
-  putDigits(b, end + 9, n - high * 1e9, 9);
+  const end = putInteger(view, at, high);
+  putDigits(view, end + 9, n - high * 1e9, 9);
   return end + 9;
 }
 
 // Writes an integer in [0, 10^width) as exactly `width` digits (zeros in front).
-function putPadded(b: Uint8Array, at: number, n: number, width: number): number {
+function putPadded(view: DataView, at: number, n: number, width: number): number {
   if (width <= 9) {
-    putDigits(b, at + width, n, width);
+    putDigits(view, at + width, n, width);
     return at + width;
   }
   const high = Math.floor(n / 1e9);
-  const end = putPadded(b, at, high, width - 9);
-  putDigits(b, end + 9, n - high * 1e9, 9);
+  const end = putPadded(view, at, high, width - 9);
+  putDigits(view, end + 9, n - high * 1e9, 9);
   return end + 9;
+}
+
+// Writes formatDecimal(value, decimals) (nothing for NaN and infinities) and returns the end,
+// or -1 (nothing written) where the general path is needed.
+function putFixed(view: DataView, at: number, value: number, decimals: number): number {
+  const abs = Math.abs(value);
+  const scale = POWERS_OF_TEN[decimals];
+  if (scale === undefined) return -1;
+  const scaled = abs * scale;
+  if (!(scaled < FIFTEEN_DIGITS)) return abs < Number.POSITIVE_INFINITY ? -1 : at;
+  // The product has at most one rounding error (scale is exact); away from a half, rounding it
+  // gives the same integer as toFixed's exact decimal rounding. Ties take the general path.
+  if (!(Math.abs(scaled - Math.floor(scaled) - 0.5) > scaled * 1e-15 + 1e-300)) return -1;
+  // Rounding half up (as Math.round, but quicker): the same integer away from a half.
+  const n = Math.floor(scaled + 0.5);
+  // Rounded to zero, a negative value is written `0` (formatDecimal drops the sign of -0).
+  if (n === 0) {
+    view.setUint8(at, ZERO);
+    return at + 1;
+  }
+  if (value < 0) view.setUint8(at++, 45);
+  return putDecimal(view, at, abs, n, decimals, scale);
+}
+
+// Writes the value (abs its magnitude, in [1e-6, 1e15)) with k decimals, trailing zeros dropped,
+// when the nearest such decimal of at most 15 digits gives it back exactly (it is then the shortest
+// form, see #shortestDigits); returns the end, or -1 (nothing written).
+function putWithDecimals(view: DataView, at: number, value: number, abs: number, k: number): number {
+  const scale = POWERS_OF_TEN[k] as number;
+  // Math.round, but quicker; rounding differently near a half at worst fails the check below
+  // (which only the right n passes), sending the value to the general path.
+  const n = Math.floor(abs * scale + 0.5);
+  if (!(n < FIFTEEN_DIGITS) || n / scale !== abs) return -1;
+  if (value < 0) view.setUint8(at++, 45);
+  return putDecimal(view, at, abs, n, k, scale);
 }
 
 // Writes abs rounded to `decimals` places, given n, its digits (abs·10^decimals rounded to an
 // integer below 10^15, so that n·10^-decimals lies within half a unit of the last place, and
 // scale = 10^decimals), with trailing zeros dropped.
-function putDecimal(b: Uint8Array, at: number, abs: number, n: number, decimals: number, scale: number): number {
+function putDecimal(view: DataView, at: number, abs: number, n: number, decimals: number, scale: number): number {
   // The whole part without a division: n lies in [whole·scale, (whole + 1)·scale] (all exact
   // integers below 2^53), the top end when rounding carried into the next whole number.
   let whole = Math.floor(abs);
@@ -426,12 +484,12 @@ function putDecimal(b: Uint8Array, at: number, abs: number, n: number, decimals:
     whole++;
     fraction -= scale;
   }
-  const end = putInteger(b, at, whole);
+  const end = putInteger(view, at, whole);
   if (fraction === 0) return end;
-  b[end] = 46;
+  view.setUint8(end, POINT);
   // All the decimals are written, then the trailing zeros taken back (the fraction is not zero, so
   // this stops at a digit after the point).
-  let last = putPadded(b, end + 1, fraction, decimals);
-  while (b[last - 1] === ZERO) last--;
+  let last = putPadded(view, end + 1, fraction, decimals);
+  while (view.getUint8(last - 1) === ZERO) last--;
   return last;
 }

@@ -2,7 +2,7 @@ import { createReprojection } from '../crs/create-reprojection.js';
 import type { ResolvedCrs } from '../crs/resolve-crs.js';
 import { type FixColumnName, hasColumnValues } from '../model/track.js';
 import { formatDecimal, formatIsoTime } from './format-decimal.js';
-import { TextBuffer } from './text-buffer.js';
+import { SHORTEST_DIGITS, TextBuffer } from './text-buffer.js';
 import { segmentRanges, type WriteInput } from './write-input.js';
 
 /** Options of `writeCsv`. */
@@ -39,9 +39,6 @@ const OPTIONAL_COLUMNS: ReadonlyArray<readonly [FixColumnName, string]> = [
 
 /** Optional columns in WGS 84 degrees, rounded like `lat`/`lon`. */
 const DEGREE_COLUMNS: ReadonlySet<FixColumnName> = new Set(['surfaceLatDeg', 'surfaceLonDeg']);
-
-/** In a column's decimals: the value's shortest round-trip digits instead of fixed decimals. */
-const SHORTEST = -1;
 
 /** Logged values rarely carry more than three decimals (a guess that speeds the digits up, never changes them). */
 const LIKELY_DECIMALS = 3;
@@ -119,21 +116,19 @@ function buildCsv(input: WriteInput, options: WriteCsvOptions): TextBuffer {
     // Numbers never need quoting (digits, '-', '.'); the track's own fields are quoted once.
     const trackFields = `${quote(track.id, sep)}${sep}${quote(track.role, sep)}${sep}`;
     const nameField = `${sep}${quote(track.name ?? '', sep)}${sep}`;
-    // The per-fix columns after lat/lon, each with its decimals worked out once: the CRS
-    // coordinates and the surface unit's degrees are rounded like lat/lon, other values written
-    // in their shortest form (SHORTEST).
-    const values: Float64Array[] = [];
-    const decimals: number[] = [];
+    // The numeric columns after the time, each with its decimals worked out once: lat/lon, the CRS
+    // coordinates and the surface unit's degrees are rounded to fixed decimals, other values
+    // written in their shortest form.
+    const values: Float64Array[] = [c.latDeg, c.lonDeg];
+    const decimals: number[] = [degDecimals, degDecimals];
     if (projected) {
       values.push(projected.x, projected.y);
       decimals.push(crsDecimals, crsDecimals);
     }
     for (const [column] of columns) {
       values.push(c[column]);
-      decimals.push(DEGREE_COLUMNS.has(column) ? degDecimals : SHORTEST);
+      decimals.push(DEGREE_COLUMNS.has(column) ? degDecimals : SHORTEST_DIGITS);
     }
-    const lat = c.latDeg;
-    const lon = c.lonDeg;
     const timeMs = c.timeMs;
     for (let s = 0; s < ranges.length; s++) {
       const [start, end] = ranges[s] as [number, number];
@@ -149,17 +144,7 @@ function buildCsv(input: WriteInput, options: WriteCsvOptions): TextBuffer {
       for (let i = start; i < end; i++) {
         out.bytes(segmentFields);
         out.isoTime(timeMs[i] as number);
-        out.char(sepCode);
-        out.fixed(lat[i] as number, degDecimals);
-        out.char(sepCode);
-        out.fixed(lon[i] as number, degDecimals);
-        for (let k = 0; k < values.length; k++) {
-          out.char(sepCode);
-          const value = (values[k] as Float64Array)[i] as number;
-          const places = decimals[k] as number;
-          if (places === SHORTEST) out.shortest(value, LIKELY_DECIMALS);
-          else out.fixed(value, places);
-        }
+        out.separatedNumbers(sepCode, values, decimals, i, LIKELY_DECIMALS);
         out.char(13);
         out.char(10);
       }

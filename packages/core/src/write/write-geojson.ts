@@ -1,6 +1,6 @@
 import { computeBoundingBox } from '../geodesy/measure-track.js';
 import { joinColumns, type Track } from '../model/track.js';
-import { formatIsoTime } from './format-decimal.js';
+import { formatIsoTime, roundHalfUp } from './format-decimal.js';
 import { TextBuffer } from './text-buffer.js';
 import { segmentRanges, type WriteInput, withSurfaceTracks, wrapLongitude } from './write-input.js';
 
@@ -140,8 +140,8 @@ function wholePiece(track: Track, start: number, end: number, decimals: number):
     const lon = c.lonDeg[i] as number;
     if (!Number.isFinite(lat) || !Number.isFinite(lon)) continue;
     // As round() does, with the factor worked out once.
-    piece.lon[k] = Math.round(wrapLongitude(lon) * f) / f + 0;
-    piece.lat[k] = Math.round(lat * f) / f + 0;
+    piece.lon[k] = roundHalfUp(wrapLongitude(lon) * f) / f + 0;
+    piece.lat[k] = roundHalfUp(lat * f) / f + 0;
     piece.timeMs[k] = c.timeMs[i] as number;
     piece.depthM[k] = c.depthM[i] as number;
     k++;
@@ -235,7 +235,8 @@ function concatenate(parts: ArrayLike<number>[]): Float64Array {
 function writeCoordinates(out: TextBuffer, p: Piece, decimals: number): void {
   out.char(91);
   for (let i = 0; i < p.lon.length; i++) {
-    out.ascii(i === 0 ? '[' : ',[');
+    if (i > 0) out.char(44);
+    out.char(91);
     out.number(p.lon[i] as number, decimals);
     out.char(44);
     out.number(p.lat[i] as number, decimals);
@@ -434,8 +435,15 @@ function buildCompactGeoJson(given: WriteInput, options: WriteGeoJsonOptions): T
   const out = new TextBuffer();
   out.ascii(`{"type":"FeatureCollection",${bbox}"features":[`);
   let written = 0;
+  let fixesWritten = 0;
   for (const t of input.tracks) {
     const before = out.byteLength;
+    // Room for the feature at once, guessed from the features so far (the first time from typical
+    // widths: two coordinates, a time, a depth), so the buffer grows about once per file instead
+    // of doubling (and copying everything) many times.
+    const fixBytes = fixesWritten > 0 ? (before / fixesWritten) * 1.125 : 80;
+    out.makeRoom(t.length * fixBytes);
+    fixesWritten += t.length;
     if (written > 0) out.char(44);
     if (writeTrackFeature(out, t, decimals, options.gapMs)) written++;
     else out.truncate(before);
