@@ -4,7 +4,6 @@ import { MPS_PER_KNOT, normaliseAzimuthDeg } from '../model/units.js';
 import { collectReadEvents } from './collect-read-events.js';
 import { decodeLogText } from './decode-log-text.js';
 import type { LogInput, LogReadResult, ReadOptions } from './log-read-result.js';
-import { parseDecimal } from './parse-csv-row-fast.js';
 import { EARLIEST_TIME_MS, LATEST_TIME_MS, LogTimeParser } from './parse-log-time.js';
 import { type LogTextInput, refusedLog } from './read-csv.js';
 import type { FixBatch, ReadEvent } from './read-event.js';
@@ -67,7 +66,6 @@ function newNmeaBatch(): FixBatch {
 }
 
 // Sentence kinds told apart without copying the address.
-const UNUSED = 0;
 const OTHER = 1;
 const GGA = 2;
 const RMC = 3;
@@ -77,25 +75,17 @@ const VTG = 5;
 const ZDA = 6;
 const HDG = 7;
 
-/** HDT, VTG, ZDA or HDG (any letter case) from the last three characters of the address ending at `end`, else OTHER. */
-function otherSentenceKind(src: string, end: number): number {
-  const a = src.charCodeAt(end - 3) | 32;
-  const b = src.charCodeAt(end - 2) | 32;
-  const c = src.charCodeAt(end - 1) | 32;
-  if (a === 104 && b === 100 && c === 116) return HDT; // h d t
-  if (a === 118 && b === 116 && c === 103) return VTG; // v t g
-  if (a === 122 && b === 100 && c === 97) return ZDA; // z d a
-  if (a === 104 && b === 100 && c === 103) return HDG; // h d g
-  return OTHER;
-}
-
-/** GGA or RMC (any letter case) from the last three characters of the address ending at `end`, else OTHER. */
-function sentenceKind(src: string, end: number): number {
-  const a = src.charCodeAt(end - 3) | 32;
-  const b = src.charCodeAt(end - 2) | 32;
-  const c = src.charCodeAt(end - 1) | 32;
+/** The sentence type (any letter case) from the last three bytes of the address ending at `end`, else OTHER. */
+function sentenceKind(bytes: Uint8Array, end: number): number {
+  const a = (bytes[end - 3] as number) | 32;
+  const b = (bytes[end - 2] as number) | 32;
+  const c = (bytes[end - 1] as number) | 32;
   if (a === 103 && b === 103 && c === 97) return GGA; // g g a
+  if (a === 122 && b === 100 && c === 97) return ZDA; // z d a
+  if (a === 104 && b === 100 && c === 116) return HDT; // h d t
   if (a === 114 && b === 109 && c === 99) return RMC; // r m c
+  if (a === 118 && b === 116 && c === 103) return VTG; // v t g
+  if (a === 104 && b === 100 && c === 103) return HDG; // h d g
   return OTHER;
 }
 
@@ -274,59 +264,51 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
     else extraSpeedMps = speedMps;
   };
   const fields = new NmeaFields();
+  /** A line's characters as bytes, for lines read the general way. */
+  const lineBytes = new LineBytes();
   /**
-   * The hot path: a GGA or RMC sentence (`at` its `$`, fields scanned into `fields`, `x` the XOR of
-   * its body) that makes or joins a fix without any finding. Returns false, having changed nothing,
-   * for everything else (read by `readSentence`).
+   * A GGA that makes or joins a fix without any finding; false, having changed nothing, otherwise
+   * (`rejectGga` then says why).
    */
-  const readFixSentence = (src: string, at: number, to: number, line: number, x: number): boolean => {
-    const star = fields.star;
-    if (star >= 0 && hexByteAt(src, star + 1, to) !== x) return false;
-    const addressStart = fields.start(0);
-    const addressEnd = fields.end(0);
-    if (src.charCodeAt(at) === 33 || addressEnd - addressStart < 5 || src.charCodeAt(addressStart) === 80) return false;
-    const kind = sentenceKind(src, addressEnd);
-    if (kind === GGA) {
-      const tod = parseTimeOfDayIn(src, fields.start(1), fields.end(1));
-      if (tod === undefined) return false;
-      const quality = fields.number(6);
-      if (quality === 0) return false;
-      const lat = parseNmeaCoordinateIn(src, fields.start(2), fields.end(2), fields.letter(3), 2);
-      if (lat === undefined) return false;
-      const lon = parseNmeaCoordinateIn(src, fields.start(4), fields.end(4), fields.letter(5), 3);
-      if (lon === undefined) return false;
-      if (star < 0) withoutChecksum++;
-      const epoch = joinEpoch(tod, line, lat, lon);
-      if (!Number.isNaN(quality)) epoch.quality = quality;
-      const altitude = fields.number(9);
-      if (Number.isFinite(altitude)) {
-        epoch.depthM = -altitude + 0;
-        altitudes++;
-        if (altitude > 0) positiveAltitudes++;
-      }
-      return true;
+  const readGga = (b: Uint8Array, line: number): boolean => {
+    const tod = parseTimeOfDayIn(b, fields.start(1), fields.end(1));
+    if (tod === undefined) return false;
+    const quality = fields.number(6);
+    if (quality === 0) return false;
+    const lat = parseNmeaCoordinateIn(b, fields.start(2), fields.end(2), fields.letter(3), 2);
+    if (lat === undefined) return false;
+    const lon = parseNmeaCoordinateIn(b, fields.start(4), fields.end(4), fields.letter(5), 3);
+    if (lon === undefined) return false;
+    const epoch = joinEpoch(tod, line, lat, lon);
+    if (!Number.isNaN(quality)) epoch.quality = quality;
+    const altitude = fields.number(9);
+    if (Number.isFinite(altitude)) {
+      epoch.depthM = -altitude + 0;
+      altitudes++;
+      if (altitude > 0) positiveAltitudes++;
     }
-    if (kind === RMC) {
-      const tod = parseTimeOfDayIn(src, fields.start(1), fields.end(1));
-      if (tod === undefined || fields.letter(2) !== 65 /* A */) return false;
-      const day = parseNmeaDateIn(src, fields.start(9), fields.end(9));
-      if (day === undefined && !fields.isEmpty(9)) return false;
-      const lat = parseNmeaCoordinateIn(src, fields.start(3), fields.end(3), fields.letter(4), 2);
-      if (lat === undefined) return false;
-      const lon = parseNmeaCoordinateIn(src, fields.start(5), fields.end(5), fields.letter(6), 3);
-      if (lon === undefined) return false;
-      if (star < 0) withoutChecksum++;
-      const epoch = joinEpoch(tod, line, lat, lon);
-      if (day !== undefined) epoch.dayMs = day;
-      const sog = fields.number(7);
-      if (!Number.isNaN(sog) && Number.isNaN(epoch.speedMps)) epoch.speedMps = sog * MPS_PER_KNOT;
-      return true;
-    }
-    return false;
+    return true;
+  };
+  /** An RMC that makes or joins a fix without any finding; false, having changed nothing, otherwise. */
+  const readRmc = (b: Uint8Array, line: number): boolean => {
+    const tod = parseTimeOfDayIn(b, fields.start(1), fields.end(1));
+    if (tod === undefined || fields.letter(2) !== 65 /* A */) return false;
+    const day = parseNmeaDateIn(b, fields.start(9), fields.end(9));
+    if (day === undefined && !fields.isEmpty(9)) return false;
+    const lat = parseNmeaCoordinateIn(b, fields.start(3), fields.end(3), fields.letter(4), 2);
+    if (lat === undefined) return false;
+    const lon = parseNmeaCoordinateIn(b, fields.start(5), fields.end(5), fields.letter(6), 3);
+    if (lon === undefined) return false;
+    const epoch = joinEpoch(tod, line, lat, lon);
+    if (day !== undefined) epoch.dayMs = day;
+    const sog = fields.number(7);
+    if (!Number.isNaN(sog) && Number.isNaN(epoch.speedMps)) epoch.speedMps = sog * MPS_PER_KNOT;
+    return true;
   };
   /**
-   * Reads one line. Events go to `out` (handed on after the line); rows merged into a fix or not
-   * used are only counted in `nonFixRows`, so they never break a batch of fixes.
+   * Reads one line the general way: trimmed, the sentence found after any leading text, its
+   * characters copied as bytes. Events go to `out` (handed on after the line); rows merged into a
+   * fix or not used are only counted in `nonFixRows`, so they never break a batch of fixes.
    */
   const readLine = (src: string, start: number, end: number, line: number, tooLongChars: number): void => {
     if (tooLongChars >= 0) {
@@ -356,26 +338,31 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
       );
       return;
     }
-    readSentence(src, start, at, to, line, fields.scan(src, at + 1, to));
+    const ascii = lineBytes.load(src, at, to);
+    fields.scanLine(lineBytes, at + 1);
+    // a character beyond ASCII was copied as 255: the checksum is over the characters themselves
+    const x = ascii ? fields.checksum : xorOf(src, at + 1, fields.star >= 0 ? fields.star + lineBytes.base : to);
+    readSentence(src, start, at, to, line, x);
   };
   /**
-   * One sentence from its `$` or `!` at `at` to `to` (trimmed) on the line starting at `lineStart`,
-   * its fields already scanned and `x` the XOR of its body. Fields are read in place, copied only
-   * on rare paths.
+   * One sentence from its `$` or `!` at `at` to `to` (trimmed, text positions) on the line starting
+   * at `lineStart`, its fields scanned into `fields` and `x` the XOR of its body. Fields are read in
+   * place from `fields.bytes`, copied only for messages.
    */
   const readSentence = (src: string, lineStart: number, at: number, to: number, line: number, x: number): void => {
     if (to - at + 2 > NMEA_MAX_SENTENCE) overLength++;
-    if (readFixSentence(src, at, to, line, x)) return;
+    const b = fields.bytes;
+    const base = fields.base;
     const star = fields.star;
     if (star >= 0) {
-      if (hexByteAt(src, star + 1, to) !== x) {
+      if (hexByteAt(b, star + 1, to - base) !== x) {
         pushEvent(
           reject(
             line,
             'bad-checksum',
             `checksum ${HEX[(x >> 4) & 15]}${HEX[x & 15]} (XOR of the characters between $ and *)`,
-            `*${src.slice(star + 1, to)}`,
-            star - lineStart + 1,
+            `*${src.slice(base + star + 1, to)}`,
+            base + star - lineStart + 1,
           ),
         );
         return;
@@ -385,34 +372,28 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
     }
     const addressStart = fields.start(0);
     const addressEnd = fields.end(0);
-    const kind =
-      src.charCodeAt(at) === 33 ||
-      addressEnd - addressStart < 5 ||
-      src.charCodeAt(addressStart) === 80 /* P: proprietary */
-        ? UNUSED
-        : sentenceKind(src, addressEnd);
-    if (kind === GGA) {
-      rejectGga(src, line);
-      return;
-    }
-    if (kind === RMC) {
-      rejectRmc(src, line);
-      return;
-    }
-    if (kind === UNUSED) {
+    if (b[at - base] === 33 || addressEnd - addressStart < 5 || b[addressStart] === 80 /* P: proprietary */) {
       const address = fields.get(0);
       unused.set(address, (unused.get(address) ?? 0) + 1);
       nonFixRows++;
       return;
     }
-    const other = otherSentenceKind(src, addressEnd);
-    if (other === HDT) {
+    const kind = sentenceKind(b, addressEnd);
+    if (kind === GGA) {
+      if (!readGga(b, line)) rejectGga(b, line);
+      return;
+    }
+    if (kind === RMC) {
+      if (!readRmc(b, line)) rejectRmc(b, line);
+      return;
+    }
+    if (kind === HDT) {
       const heading = fields.number(1);
       if (!Number.isNaN(heading)) attachHeading(normaliseAzimuthDeg(heading));
       nonFixRows++;
       return;
     }
-    if (other === VTG) {
+    if (kind === VTG) {
       // Older form `$--VTG,x.x,x,x.x,x.x`: field 2 is not the literal T (NMEA Revealed, VTG).
       const newer = fields.letter(2) === 84 || fields.isEmpty(2);
       const knots = fields.number(newer ? 5 : 3);
@@ -421,28 +402,27 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
       nonFixRows++;
       return;
     }
-    if (other === HDG) {
+    if (kind === HDG) {
       readHdg();
       nonFixRows++;
       return;
     }
-    if (other === ZDA) {
-      readZda(src, at, to, line);
+    if (kind === ZDA) {
+      readZda(src, b, at, to, line);
       return;
     }
-    const typeRaw = src.slice(addressEnd - 3, addressEnd);
-    const type = typeRaw.toUpperCase();
+    const type = src.slice(base + addressEnd - 3, base + addressEnd).toUpperCase();
     unused.set(type, (unused.get(type) ?? 0) + 1);
     nonFixRows++;
   };
   /**
-   * Why `readFixSentence` declined a GGA whose checksum is good (it takes every GGA with a time, a
-   * fix and a position, so one of them is wrong here): the rejection.
+   * Why `readGga` declined a GGA whose checksum is good (it takes every GGA with a time, a fix and
+   * a position, so one of them is wrong here): the rejection.
    */
-  const rejectGga = (src: string, line: number): void => {
-    const tod = parseTimeOfDayIn(src, fields.start(1), fields.end(1));
+  const rejectGga = (b: Uint8Array, line: number): void => {
+    const tod = parseTimeOfDayIn(b, fields.start(1), fields.end(1));
     const quality = fields.number(6);
-    const lat = parseNmeaCoordinateIn(src, fields.start(2), fields.end(2), fields.letter(3), 2);
+    const lat = parseNmeaCoordinateIn(b, fields.start(2), fields.end(2), fields.letter(3), 2);
     if (tod === undefined) {
       pushEvent(reject(line, 'unparsable-time', 'a UTC time of day hhmmss.ss in GGA field 1', quote(fields.get(1)), 2));
       return;
@@ -468,15 +448,15 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
     );
   };
   /**
-   * Why `readFixSentence` declined an RMC whose checksum is good (it takes every RMC with a time,
-   * status A, a position and a valid or empty date): the rejection. A void RMC may still set the date.
+   * Why `readRmc` declined an RMC whose checksum is good (it takes every RMC with a time, status A,
+   * a position and a valid or empty date): the rejection. A void RMC may still set the date.
    */
-  const rejectRmc = (src: string, line: number): void => {
-    const tod = parseTimeOfDayIn(src, fields.start(1), fields.end(1));
-    const day = parseNmeaDateIn(src, fields.start(9), fields.end(9));
+  const rejectRmc = (b: Uint8Array, line: number): void => {
+    const tod = parseTimeOfDayIn(b, fields.start(1), fields.end(1));
+    const day = parseNmeaDateIn(b, fields.start(9), fields.end(9));
     const active = fields.letter(2) === 65; /* A */
-    const lat = parseNmeaCoordinateIn(src, fields.start(3), fields.end(3), fields.letter(4), 2);
-    const lon = parseNmeaCoordinateIn(src, fields.start(5), fields.end(5), fields.letter(6), 3);
+    const lat = parseNmeaCoordinateIn(b, fields.start(3), fields.end(3), fields.letter(4), 2);
+    const lon = parseNmeaCoordinateIn(b, fields.start(5), fields.end(5), fields.letter(6), 3);
     if (tod === undefined) {
       pushEvent(reject(line, 'unparsable-time', 'a UTC time of day hhmmss.ss in RMC field 1', quote(fields.get(1)), 2));
       return;
@@ -528,15 +508,15 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
     if (Number.isFinite(heading)) attachHeading(normaliseAzimuthDeg(heading));
   };
   /** ZDA: the date for the fixes around it, or an `unparsable-time` rejection. */
-  const readZda = (src: string, at: number, to: number, line: number): void => {
-    const tod = parseTimeOfDayIn(src, fields.start(1), fields.end(1));
+  const readZda = (src: string, b: Uint8Array, at: number, to: number, line: number): void => {
+    const tod = parseTimeOfDayIn(b, fields.start(1), fields.end(1));
     // the usual form (two-digit day and month, four-digit year) read in place
-    const d = fields.end(2) - fields.start(2) === 2 ? twoDigits(src, fields.start(2)) : -1;
-    const m = fields.end(3) - fields.start(3) === 2 ? twoDigits(src, fields.start(3)) : -1;
+    const d = fields.end(2) - fields.start(2) === 2 ? twoDigits(b, fields.start(2)) : -1;
+    const m = fields.end(3) - fields.start(3) === 2 ? twoDigits(b, fields.start(3)) : -1;
     const y4 = fields.start(4);
     const y =
-      fields.end(4) - y4 === 4 && twoDigits(src, y4) >= 0 && twoDigits(src, y4 + 2) >= 0
-        ? twoDigits(src, y4) * 100 + twoDigits(src, y4 + 2)
+      fields.end(4) - y4 === 4 && twoDigits(b, y4) >= 0 && twoDigits(b, y4 + 2) >= 0
+        ? twoDigits(b, y4) * 100 + twoDigits(b, y4 + 2)
         : -1;
     if (tod !== undefined && d >= 1 && d <= 31 && m >= 1 && m <= 12 && y >= 0) {
       nonFixRows++;
@@ -693,32 +673,52 @@ function hexDigit(code: number): number {
 }
 
 /** The two hex digits at `at` as a byte, or -1 when they are not two hex digits before `end`. */
-function hexByteAt(text: string, at: number, end: number): number {
+function hexByteAt(bytes: Uint8Array, at: number, end: number): number {
   if (at + 2 > end) return -1;
-  const high = hexDigit(text.charCodeAt(at));
-  const low = hexDigit(text.charCodeAt(at + 1));
+  const high = hexDigit(bytes[at] as number);
+  const low = hexDigit(bytes[at + 1] as number);
   return high < 0 || low < 0 ? -1 : high * 16 + low;
+}
+
+/** XOR of the characters of `text` from `start` to `end` (for a sentence with characters beyond ASCII). */
+function xorOf(text: string, start: number, end: number): number {
+  let x = 0;
+  for (let i = start; i < end; i++) x ^= text.charCodeAt(i);
+  return x;
+}
+
+/**
+ * Characters of a text as bytes, so that sentences are scanned and read from a typed array (several
+ * times faster than `charCodeAt`): `bytes[k]` is the character at text position `base + k`, for
+ * `base + k < limit`; a line that reaches `limit` before `stop` goes on past the bytes held.
+ */
+interface TextBytes {
+  readonly text: string;
+  readonly bytes: Uint8Array;
+  readonly base: number;
+  readonly limit: number;
+  readonly stop: number;
 }
 
 /** Characters of the window over the text that `NmeaFields.scanLine` reads as bytes. */
 const WINDOW_CHARS = 65_536;
 
 /**
- * Part of an ASCII text as bytes (one per character, so positions are the text's): a typed array
- * is read several times faster than `charCodeAt`. Turns itself off for good at the first character
- * that is not ASCII; the reader then takes the general way.
+ * Part of an ASCII text as bytes, one per character. Turns itself off for good at the first
+ * character that is not ASCII; the reader then takes the general way (`LineBytes`).
  */
-class AsciiWindow {
+class AsciiWindow implements TextBytes {
   readonly text: string;
   readonly bytes = new Uint8Array(WINDOW_CHARS);
-  /** `bytes[k]` is the character at `base + k` of the text, for `base + k < limit`. */
   base = 0;
   limit = 0;
+  readonly stop: number;
   #off = false;
   readonly #encoder = new TextEncoder();
 
   constructor(text: string) {
     this.text = text;
+    this.stop = text.length;
   }
 
   /** Moves the window to start at `pos`; false when that gains nothing (already there) or the text is not ASCII. */
@@ -737,64 +737,66 @@ class AsciiWindow {
   }
 }
 
-/** The comma-separated fields of one sentence body, located in place; `get` copies one field. */
+/**
+ * One line's characters as bytes, for lines read the general way; a character beyond ASCII becomes
+ * 255, which no rule of a sentence matches (as the character itself would not).
+ */
+class LineBytes implements TextBytes {
+  text = '';
+  bytes = new Uint8Array(128);
+  base = 0;
+  limit = 0;
+  stop = 0;
+
+  /** Copies characters `start` to `end` of `text`; whether they were all ASCII. */
+  load(text: string, start: number, end: number): boolean {
+    if (this.bytes.length < end - start) this.bytes = new Uint8Array(end - start);
+    const bytes = this.bytes;
+    let ascii = true;
+    for (let i = start; i < end; i++) {
+      const c = text.charCodeAt(i);
+      if (c > 127) ascii = false;
+      bytes[i - start] = Math.min(c, 255);
+    }
+    this.text = text;
+    this.base = start;
+    this.limit = end;
+    this.stop = end;
+    return ascii;
+  }
+}
+
+/** A short text as bytes (see `LineBytes`), for the exported parsers. */
+function bytesOf(text: string): Uint8Array {
+  const line = new LineBytes();
+  line.load(text, 0, text.length);
+  return line.bytes.subarray(0, text.length);
+}
+
+/** The comma-separated fields of one sentence body, located in place in bytes; `get` copies one field from the text. */
 class NmeaFields {
-  #src = '';
+  #text = '';
   #end = 0;
   #count = 0;
   readonly #starts = new Int32Array(64);
-
-  /** Position of the last `*` of the sentence (the checksum delimiter), or -1 when it has none. */
+  /** The bytes the positions below index; `base` is the text position of `bytes[0]`. */
+  bytes: Uint8Array = new Uint8Array(0);
+  base = 0;
+  /** Index in `bytes` of the last `*` of the sentence (the checksum delimiter), or -1 when it has none. */
   star = -1;
-
-  /**
-   * Finds the fields of the sentence from `start` (after `$`) to `end` in one pass: the body ends at
-   * the last `*` when there is one. Returns the XOR of the body's characters (the checksum).
-   */
-  scan(src: string, start: number, end: number): number {
-    this.#src = src;
-    const starts = this.#starts;
-    const max = starts.length;
-    let n = 0;
-    starts[n++] = start;
-    let x = 0;
-    let star = -1;
-    let xAtStar = 0;
-    let nAtStar = 0;
-    for (let i = start; i < end; i++) {
-      const c = src.charCodeAt(i);
-      if (c === 44) {
-        if (n < max) starts[n++] = i + 1;
-      } else if (c === 42) {
-        star = i;
-        xAtStar = x;
-        nAtStar = n;
-      }
-      x ^= c;
-    }
-    this.star = star;
-    if (star >= 0) {
-      this.#end = star;
-      this.#count = nAtStar;
-      return xAtStar;
-    }
-    this.#end = end;
-    this.#count = n;
-    return x;
-  }
-
-  /** The XOR of the body found by the last `scanLine`. */
+  /** The XOR of the body (the checksum). */
   checksum = 0;
 
   /**
-   * `scan` of a sentence whose end is not known yet, over the ASCII bytes of `window`: from text
-   * position `start` (after `$`) to the first CR or LF, or the end of the text. Returns that end,
-   * with the body's XOR in `checksum`; -1 when the window ends first (nothing is changed then).
+   * Finds the fields of the sentence from text position `start` (after `$`) to the first CR or LF
+   * (or `source.stop`) in one pass; the body ends at the last `*` when there is one. Returns the
+   * text position where the sentence ends, with the body's XOR in `checksum`; -1 when the bytes
+   * held end first (nothing is changed then).
    */
-  scanLine(window: AsciiWindow, start: number): number {
-    const bytes = window.bytes;
-    const base = window.base;
-    const limit = window.limit;
+  scanLine(source: TextBytes, start: number): number {
+    const bytes = source.bytes;
+    const base = source.base;
+    const n = source.limit - base;
     const starts = this.#starts;
     const max = starts.length;
     let count = 1;
@@ -802,43 +804,46 @@ class NmeaFields {
     let star = -1;
     let xAtStar = 0;
     let countAtStar = 0;
-    let i = start;
-    for (; i < limit; i++) {
-      const c = bytes[i - base] as number;
+    const first = start - base;
+    let k = first;
+    for (; k < n; k++) {
+      const c = bytes[k] as number;
       // one test for the common characters (digits, letters, `.`, `-`): all above `,`
       if (c <= 44) {
         if (c === 44) {
-          if (count < max) starts[count++] = i + 1;
+          if (count < max) starts[count++] = k + 1;
         } else if (c === 42) {
-          star = i;
+          star = k;
           xAtStar = x;
           countAtStar = count;
         } else if (c === 10 || c === 13) break;
       }
       x ^= c;
     }
-    if (i >= limit && limit < window.text.length) return -1;
-    this.#src = window.text;
-    starts[0] = start;
+    if (k >= n && source.limit < source.stop) return -1;
+    this.#text = source.text;
+    this.bytes = bytes;
+    this.base = base;
+    starts[0] = first;
     this.star = star;
     if (star >= 0) {
       this.#end = star;
       this.#count = countAtStar;
       this.checksum = xAtStar;
     } else {
-      this.#end = i;
+      this.#end = k;
       this.#count = count;
       this.checksum = x;
     }
-    return i;
+    return base + k;
   }
 
-  /** Index in the source where field `i` starts (the body's end for a missing field). */
+  /** Index in `bytes` where field `i` starts (the body's end for a missing field). */
   start(i: number): number {
     return i < this.#count ? (this.#starts[i] as number) : this.#end;
   }
 
-  /** Index in the source just past field `i` (the body's end for a missing field). */
+  /** Index in `bytes` just past field `i` (the body's end for a missing field). */
   end(i: number): number {
     return i + 1 < this.#count ? (this.#starts[i + 1] as number) - 1 : this.#end;
   }
@@ -846,7 +851,7 @@ class NmeaFields {
   /** The character code of field `i` when it is exactly one character, else -1. */
   letter(i: number): number {
     const start = this.start(i);
-    return this.end(i) - start === 1 ? this.#src.charCodeAt(start) : -1;
+    return this.end(i) - start === 1 ? (this.bytes[start] as number) : -1;
   }
 
   /** Whether field `i` is empty or missing. */
@@ -861,9 +866,10 @@ class NmeaFields {
     if (this.isEmpty(i)) return Number.NaN;
     const start = this.#starts[i] as number;
     const end = i + 1 < this.#count ? (this.#starts[i + 1] as number) - 1 : this.#end;
-    const fast = parseDecimal(this.#src, start, end);
+    const fast = parseDecimalIn(this.bytes, start, end);
     if (!Number.isNaN(fast)) return fast;
-    const value = Number(this.#src.slice(start, end));
+    // anything else (white space, exponents, over 15 digits) as `Number` reads the field
+    const value = Number(this.#text.slice(this.base + start, this.base + end));
     return Number.isFinite(value) ? value : Number.NaN;
   }
 
@@ -872,27 +878,69 @@ class NmeaFields {
     if (i >= this.#count) return '';
     const start = this.#starts[i] as number;
     const end = i + 1 < this.#count ? (this.#starts[i + 1] as number) - 1 : this.#end;
-    return this.#src.slice(start, end);
+    return this.#text.slice(this.base + start, this.base + end);
   }
 }
 
-/** `hhmmss[.ss]` to milliseconds after midnight; `undefined` when malformed. */
-export function parseTimeOfDay(text: string): number | undefined {
-  return parseTimeOfDayIn(text, 0, text.length);
+/**
+ * A plain decimal (`-12.5`, `+3`, `.5`, `7.`) of bytes `start` to `end`, exactly as `Number` reads
+ * it: all digits as one integer, divided by a power of ten (both exact up to 15 digits, so the
+ * one rounding is the correctly rounded result). `NaN` for anything else and over 15 digits.
+ */
+function parseDecimalIn(bytes: Uint8Array, start: number, end: number): number {
+  let i = start;
+  let negative = false;
+  const first = bytes[i];
+  if (first === 45 || first === 43) {
+    negative = first === 45;
+    i++;
+  }
+  let mantissa = 0;
+  let c = 0;
+  const wholeStart = i;
+  for (; i < end; i++) {
+    c = bytes[i] as number;
+    const d = c - 48;
+    if (d < 0 || d > 9) break;
+    mantissa = mantissa * 10 + d;
+  }
+  let digitCount = i - wholeStart;
+  let fractionDigits = 0;
+  if (i < end && c === 46) {
+    const fractionStart = ++i;
+    for (; i < end; i++) {
+      const d = (bytes[i] as number) - 48;
+      if (d < 0 || d > 9) break;
+      mantissa = mantissa * 10 + d;
+    }
+    fractionDigits = i - fractionStart;
+    digitCount += fractionDigits;
+  }
+  if (i < end || digitCount === 0 || digitCount > 15) return Number.NaN;
+  const value = fractionDigits > 0 ? mantissa / (POW10[fractionDigits] as number) : mantissa;
+  return negative ? -value : value;
 }
 
-/** `parseTimeOfDay` of characters `start` to `end` of `src`, read in place. */
-function parseTimeOfDayIn(src: string, start: number, end: number): number | undefined {
+/** 10^k for k = 0..15, all exact in binary64. */
+const POW10 = Array.from({ length: 16 }, (_, k) => 10 ** k);
+
+/** `hhmmss[.ss]` to milliseconds after midnight; `undefined` when malformed. */
+export function parseTimeOfDay(text: string): number | undefined {
+  return parseTimeOfDayIn(bytesOf(text), 0, text.length);
+}
+
+/** `parseTimeOfDay` of bytes `start` to `end`, read in place. */
+function parseTimeOfDayIn(bytes: Uint8Array, start: number, end: number): number | undefined {
   const n = end - start;
-  if (n < 6 || (n > 6 && (n === 7 || src.charCodeAt(start + 6) !== 46))) return undefined;
-  const h = twoDigits(src, start);
-  const m = twoDigits(src, start + 2);
-  const whole = twoDigits(src, start + 4);
+  if (n < 6 || (n > 6 && (n === 7 || bytes[start + 6] !== 46))) return undefined;
+  const h = twoDigits(bytes, start);
+  const m = twoDigits(bytes, start + 2);
+  const whole = twoDigits(bytes, start + 4);
   if (h < 0 || m < 0 || whole < 0 || h > 23 || m > 59 || whole > 60) return undefined;
   let fractionMs = 0;
   let scale = 100;
   for (let i = start + 7; i < end; i++) {
-    const d = src.charCodeAt(i) - 48;
+    const d = (bytes[i] as number) - 48;
     if (d < 0 || d > 9) return undefined;
     fractionMs += d * scale;
     scale /= 10;
@@ -900,23 +948,24 @@ function parseTimeOfDayIn(src: string, start: number, end: number): number | und
   return Math.round((h * 3600 + m * 60 + whole) * 1000 + fractionMs);
 }
 
-function twoDigits(text: string, at: number): number {
-  const a = text.charCodeAt(at) - 48;
-  const b = text.charCodeAt(at + 1) - 48;
+/** The two digits at `at` as a number, -1 when they are not two digits. */
+function twoDigits(bytes: Uint8Array, at: number): number {
+  const a = (bytes[at] as number) - 48;
+  const b = (bytes[at + 1] as number) - 48;
   return a < 0 || a > 9 || b < 0 || b > 9 ? -1 : a * 10 + b;
 }
 
 /** `ddmmyy` to 00:00 UTC ms; two-digit years 80-99 are 19xx, 00-79 are 20xx (common practice for NMEA dates). */
 export function parseNmeaDate(text: string): number | undefined {
-  return parseNmeaDateIn(text, 0, text.length);
+  return parseNmeaDateIn(bytesOf(text), 0, text.length);
 }
 
-/** `parseNmeaDate` of characters `start` to `end` of `src`, read in place. */
-function parseNmeaDateIn(src: string, start: number, end: number): number | undefined {
+/** `parseNmeaDate` of bytes `start` to `end`, read in place. */
+function parseNmeaDateIn(bytes: Uint8Array, start: number, end: number): number | undefined {
   if (end - start !== 6) return undefined;
-  const d = twoDigits(src, start);
-  const m = twoDigits(src, start + 2);
-  const yy = twoDigits(src, start + 4);
+  const d = twoDigits(bytes, start);
+  const m = twoDigits(bytes, start + 2);
+  const yy = twoDigits(bytes, start + 4);
   if (d < 0 || m < 0 || yy < 0) return undefined;
   if (d < 1 || d > 31 || m < 1 || m > 12) return undefined;
   return utcDayMs(yy >= 80 ? 1900 + yy : 2000 + yy, m, d);
@@ -939,15 +988,15 @@ function utcDayMs(y: number, m: number, d: number): number {
 /** NMEA `(d)ddmm.mmmm` plus hemisphere letter to signed degrees; `undefined` when malformed or out of range. */
 export function parseNmeaCoordinate(value: string, hemisphere: string, axis: 'lat' | 'lon'): number | undefined {
   const letter = hemisphere.length === 1 ? hemisphere.charCodeAt(0) : -1;
-  return parseNmeaCoordinateIn(value, 0, value.length, letter, axis === 'lat' ? 2 : 3);
+  return parseNmeaCoordinateIn(bytesOf(value), 0, value.length, letter, axis === 'lat' ? 2 : 3);
 }
 
 /**
- * `parseNmeaCoordinate` of characters `start` to `end` of `src`, read in place, with the hemisphere
- * as one character code (-1 when the field is not one character) and 2 (latitude) or 3 (longitude) degree digits.
+ * `parseNmeaCoordinate` of bytes `start` to `end`, read in place, with the hemisphere as one
+ * character code (-1 when the field is not one character) and 2 (latitude) or 3 (longitude) degree digits.
  */
 function parseNmeaCoordinateIn(
-  src: string,
+  bytes: Uint8Array,
   start: number,
   end: number,
   hemisphere: number,
@@ -962,29 +1011,29 @@ function parseNmeaCoordinateIn(
   if (!valid || end < wholeEnd) return undefined;
   let deg = 0;
   for (let i = start; i < start + degDigits; i++) {
-    const d = src.charCodeAt(i) - 48;
+    const d = (bytes[i] as number) - 48;
     if (d < 0 || d > 9) return undefined;
     deg = deg * 10 + d;
   }
-  const m1 = src.charCodeAt(wholeEnd - 2) - 48;
-  const m2 = src.charCodeAt(wholeEnd - 1) - 48;
+  const m1 = (bytes[wholeEnd - 2] as number) - 48;
+  const m2 = (bytes[wholeEnd - 1] as number) - 48;
   if (m1 < 0 || m1 > 9 || m2 < 0 || m2 > 9) return undefined;
-  // minutes read in the same pass, as parseDecimal would: all digits as one integer over 10^fraction digits
+  // minutes read in the same pass, as `parseDecimalIn` would: all digits as one integer over 10^fraction digits
   let mantissa = m1 * 10 + m2;
   let fractionDigits = 0;
   if (end > wholeEnd) {
-    if (src.charCodeAt(wholeEnd) !== 46 || end === wholeEnd + 1) return undefined; // `.` and a fraction
+    if (bytes[wholeEnd] !== 46 || end === wholeEnd + 1) return undefined; // `.` and a fraction
     for (let i = wholeEnd + 1; i < end; i++) {
-      const d = src.charCodeAt(i) - 48;
+      const d = (bytes[i] as number) - 48;
       if (d < 0 || d > 9) return undefined;
       mantissa = mantissa * 10 + d;
     }
     fractionDigits = end - wholeEnd - 1;
   }
-  // over 15 digits the integer is not exact: the minutes as `Number` reads them
+  // over 15 digits the integer is not exact: the minutes as `Number` reads them (digits and `.` only here)
   const min =
     fractionDigits > 13
-      ? Number(src.slice(wholeEnd - 2, end))
+      ? Number(String.fromCharCode(...bytes.subarray(wholeEnd - 2, end)))
       : fractionDigits > 0
         ? mantissa / (POW10[fractionDigits] as number)
         : mantissa;
@@ -993,9 +1042,6 @@ function parseNmeaCoordinateIn(
   if (magnitude > (lat ? 90 : 180)) return undefined;
   return south || west ? -magnitude : magnitude;
 }
-
-/** 10^k for k = 0..13 (the fraction digits of minutes read exactly), all exact in binary64. */
-const POW10 = Array.from({ length: 14 }, (_, k) => 10 ** k);
 
 function quote(text: string): string {
   return `"${text.length > 60 ? `${text.slice(0, 57)}...` : text}"`;
