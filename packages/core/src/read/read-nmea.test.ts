@@ -339,6 +339,18 @@ describe('readNmeaEvents', () => {
     expect(whole2.rejections.map((r) => [r.line, r.code])).toEqual([[3001, 'bad-checksum']]);
   });
 
+  it('reads a coordinate with thousands of digits as Number does, on both ways', () => {
+    const minutes = `26.${'5'.repeat(20_000)}`;
+    const text = [
+      s('GPZDA,084600.00,13,03,2026,00,00'),
+      s(`GPGGA,084600.00,56${minutes},N,00537.16585,W,2,08,1.0,-0.36,M,,M,,`),
+    ].join('\n');
+    const [whole, chunked] = readBothWays(text, 1000);
+    expect(whole).toEqual(chunked);
+    expect(whole.tracks[0]?.columns.latDeg[0]).toBe(56 + Number(minutes) / 60);
+    expect(whole.notes).toContain('1 sentences are longer than the 82 characters NMEA 0183 allows; read anyway');
+  });
+
   it('hands on non-fix rows as counts, never an event per row, and fixes in batches', () => {
     const events = [...readNmeaEvents({ fileName: 'v.nmea', chunks: [fixLines(0, 5000).join('\n')] })];
     const kinds = events.map((e) => e.kind);

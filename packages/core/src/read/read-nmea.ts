@@ -552,25 +552,27 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
     }
   };
   /**
-   * Reads the line of `text` starting at `pos` and returns where it ends (its CR or LF, or the end
-   * of the text). A line that starts with `$` is found while its fields are scanned, in one pass
+   * Reads the line of `text` starting at `pos` and returns where the next one starts (after its CR,
+   * LF or CRLF). A line that starts with `$` is found while its fields are scanned, in one pass
    * over the bytes of `window`; one that does not, ends in white space, is not ASCII or is longer
    * than the window goes the general way (`readLine`), with the same lines as `pullLogLines`.
    */
   const readTextLine = (text: string, window: AsciiWindow, pos: number, line: number): number => {
-    if (text.charCodeAt(pos) === 36) {
-      let end = fields.scanLine(window, pos + 1);
+    let end = -1;
+    if (window.charAt(pos) === 36) {
+      end = fields.scanLine(window, pos + 1);
       if (end < 0 && window.moveTo(pos)) end = fields.scanLine(window, pos + 1);
-      if (end >= 0 && text.charCodeAt(end - 1) > 32) {
+      if (end >= 0 && window.charAt(end - 1) > 32) {
         rowCount++;
         readSentence(text, pos, pos, end, line, fields.checksum);
-        return end;
-      }
+      } else end = -1;
     }
-    const end = findLineEnd(text, pos, text.length);
-    const length = end - pos;
-    readLine(text, pos, end, line, length > MAX_LINE_CHARS ? length : -1);
-    return end;
+    if (end < 0) {
+      end = findLineEnd(text, pos, text.length);
+      const length = end - pos;
+      readLine(text, pos, end, line, length > MAX_LINE_CHARS ? length : -1);
+    }
+    return end + (window.charAt(end) === 13 && window.charAt(end + 1) === 10 ? 2 : 1);
   };
   const whole = wholeText(input.chunks);
   if (whole !== undefined) {
@@ -579,8 +581,7 @@ export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}):
     let line = 0;
     for (let pos = 0; pos < n; ) {
       line++;
-      const end = readTextLine(whole, window, pos, line);
-      pos = end + (whole.charCodeAt(end) === 13 && whole.charCodeAt(end + 1) === 10 ? 2 : 1);
+      pos = readTextLine(whole, window, pos, line);
       if (out.length > 0) yield* handOn();
     }
   } else {
@@ -709,7 +710,7 @@ const WINDOW_CHARS = 65_536;
  */
 class AsciiWindow implements TextBytes {
   readonly text: string;
-  readonly bytes = new Uint8Array(WINDOW_CHARS);
+  readonly bytes: Uint8Array;
   base = 0;
   limit = 0;
   readonly stop: number;
@@ -719,6 +720,12 @@ class AsciiWindow implements TextBytes {
   constructor(text: string) {
     this.text = text;
     this.stop = text.length;
+    this.bytes = new Uint8Array(Math.min(WINDOW_CHARS, text.length));
+  }
+
+  /** The character code at text position `pos` (from the bytes when they hold it), `NaN` past the end. */
+  charAt(pos: number): number {
+    return pos >= this.base && pos < this.limit ? (this.bytes[pos - this.base] as number) : this.text.charCodeAt(pos);
   }
 
   /** Moves the window to start at `pos`; false when that gains nothing (already there) or the text is not ASCII. */
@@ -764,6 +771,13 @@ class LineBytes implements TextBytes {
     this.stop = end;
     return ascii;
   }
+}
+
+/** Bytes `start` to `end` as text, one character each. */
+function asciiText(bytes: Uint8Array, start: number, end: number): string {
+  let text = '';
+  for (let i = start; i < end; i++) text += String.fromCharCode(bytes[i] as number);
+  return text;
 }
 
 /** A short text as bytes (see `LineBytes`), for the exported parsers. */
@@ -1033,7 +1047,7 @@ function parseNmeaCoordinateIn(
   // over 15 digits the integer is not exact: the minutes as `Number` reads them (digits and `.` only here)
   const min =
     fractionDigits > 13
-      ? Number(String.fromCharCode(...bytes.subarray(wholeEnd - 2, end)))
+      ? Number(asciiText(bytes, wholeEnd - 2, end))
       : fractionDigits > 0
         ? mantissa / (POW10[fractionDigits] as number)
         : mantissa;
