@@ -108,8 +108,9 @@ export function computeNmeaChecksum(body: string): string {
  * accepted; truncated trailing fields are read as empty. Depth is the negated GGA altitude.
  * Rejections: `bad-checksum`, `unsupported-sentence` (a line that is not a sentence),
  * `no-fix` (GGA quality 0, RMC status V, empty position), `unparsable-coordinate`,
- * `unparsable-time`, `no-date`, `time-out-of-range`, `line-too-long`. Other sentence types are
- * counted as non-fix rows.
+ * `unparsable-time`, `no-date`, `time-out-of-range`, `line-too-long`. Sentences merged into a fix
+ * and other sentence types are non-fix rows, handed on as counts (`non-fix-rows`), not an event
+ * each; fixes come in batches (`fix-batch`).
  */
 export function* readNmeaEvents(input: LogTextInput, options: ReadOptions = {}): Generator<ReadEvent> {
   const file = input.fileName;
