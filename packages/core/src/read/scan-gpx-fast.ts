@@ -34,6 +34,8 @@ const XML_DECLARATION =
  * attribute values, text and start-tag line) and returns `true`; returns `false` as soon as it meets
  * anything outside that form, and the caller then reads the whole text with the general parser
  * (which also judges what is malformed). So this path never rejects and never changes a result.
+ * With a `point` handler, a track or route point in the plain form (`PlainPointScanner`) goes to it
+ * in one call instead of its element calls; a point it declines is handed on element by element.
  */
 export function scanGpxFast(s: string, handlers: XmlElementHandlers): boolean {
   // whole-text checks first: anything here goes the general way (`<!` and `<?` after the declaration
