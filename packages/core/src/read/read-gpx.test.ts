@@ -233,6 +233,18 @@ describe('readGpxEvents', () => {
     });
   }
 
+  it('tells the consumer the size of each track up front when it reads the text whole', () => {
+    const text = PLAIN.replace(
+      '</trk>',
+      `</trk>\n<trk><name>surface unit</name><trkseg>\n${loggerPoint(9)}\n</trkseg></trk>`,
+    );
+    const hints = [...readGpxEvents({ fileName: 'case.gpx', chunks: [text] })].flatMap((e) =>
+      e.kind === 'track' ? [e.capacityHint] : [],
+    );
+    expect(hints).toEqual([3, 1]);
+    expect(collect([text]).tracks.map((t) => t.length)).toEqual([3, 1]);
+  });
+
   it('reads mutated logger points the same on both paths (seeded random edits)', () => {
     // mulberry32: a small seeded generator, so a failure can be replayed
     let seed = 0x5eed;

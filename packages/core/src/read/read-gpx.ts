@@ -100,6 +100,7 @@ export function* readGpxEvents(input: LogTextInput, options: ReadOptions = {}): 
     const fast = createGpxHandlers(input.fileName, options);
     if (scanGpxFast(whole, fast)) {
       fast.flushFixes();
+      hintTrackSizes(fast.queue);
       yield* fast.queue;
       yield* finishGpx(fast);
       return;
@@ -138,6 +139,24 @@ export function* readGpxEvents(input: LogTextInput, options: ReadOptions = {}): 
   yield* queue;
   queue.length = 0;
   yield* finishGpx(state);
+}
+
+/**
+ * Gives each track event the number of fixes that follow it as `capacityHint`, so the consumer sizes
+ * the track's columns once (on the fast path the whole file's events are at hand before any is
+ * handed on).
+ */
+function hintTrackSizes(events: ReadEvent[]): void {
+  let track: Extract<ReadEvent, { kind: 'track' }> | undefined;
+  let fixes = 0;
+  for (const event of events) {
+    if (event.kind === 'track') {
+      if (track !== undefined && fixes > 0) track.capacityHint = fixes;
+      track = event;
+      fixes = 0;
+    } else if (event.kind === 'fix-batch') fixes += event.batch.count;
+  }
+  if (track !== undefined && fixes > 0) track.capacityHint = fixes;
 }
 
 /** The one string of a text given whole (as `readLog` gives it), else `undefined`. */
