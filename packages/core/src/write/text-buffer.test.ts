@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { formatDecimal, formatIsoTime } from './format-decimal.js';
-import { TextBuffer } from './text-buffer.js';
+import { SHORTEST_DIGITS, TextBuffer } from './text-buffer.js';
 
 // A fixed pseudo-random sequence (xorshift32), so a failure names the same values every run.
 function sequence(seed: number): () => number {
@@ -57,7 +57,51 @@ function sampleValues(): number[] {
     Number.POSITIVE_INFINITY,
     Number.NEGATIVE_INFINITY,
   ];
+  // Edges of the digit fast paths: exact and near ties at the decimals tested, magnitudes either
+  // side of 10^15, 2^31 and 10^9 (where the digits are split), rounding that carries into the
+  // whole part, values that round to (negative) zero, tiny values.
+  values.push(
+    0.125,
+    -0.125,
+    2.675,
+    1.0000000050000002,
+    0.000000005,
+    -0.000000005,
+    0.0000000049999999,
+    -0.0000000049999999,
+    0.000000015,
+    999999999999999.4,
+    999999999999999.5,
+    -999999999999999.5,
+    1e15 - 1,
+    1e15 + 1,
+    99999999999999.98,
+    9999999.99999999,
+    2147483647.5,
+    2147483648.123,
+    -2147483648.987654,
+    999999999.9999999,
+    1000000000.0000001,
+    0.999999999,
+    9.9999999996,
+    -99.999999995,
+    59.99999999999999,
+    -0.000000004,
+    -0.0004,
+    -1e-20,
+    1e-15,
+    5e-324,
+    -5e-324,
+    2 ** -1074,
+    123.456789012345,
+    0.1234567890123456,
+    Number.EPSILON,
+  );
   for (let i = 0; i < 6_000; i++) {
+    // Exact halves at 0…8 decimals (ties go to the general path) and their neighbours.
+    const half = (Math.floor((next() - 0.5) * 2e6) + 0.5) / 10 ** Math.floor(next() * 9);
+    values.push(half, half * (1 + Number.EPSILON), half * (1 - Number.EPSILON));
+    values.push((next() - 0.5) * 2e15);
     values.push((next() - 0.5) * 360);
     values.push(Math.round(next() * 100_000) / 100);
     values.push(Math.round((next() - 0.5) * 2e10) / 1e8);
@@ -85,7 +129,9 @@ describe('TextBuffer', () => {
   const values = sampleValues();
 
   it('writes fixed decimals exactly as formatDecimal(value, decimals) (toFixed, trailing zeros dropped)', () => {
-    for (const decimals of [0, 2, 3, 7, 8])
+    // 10 and more decimals split the fraction at 10^9; 22 is the last with an exact 10^k; 23 and
+    // 30 take the general path.
+    for (const decimals of [0, 1, 2, 3, 7, 8, 9, 10, 12, 15, 20, 22, 23, 30])
       expect(
         mismatches(
           values,
@@ -102,11 +148,82 @@ describe('TextBuffer', () => {
     }
   }, 30_000);
 
+  it('writes rows of separated numbers exactly as fixed and shortest would, across general-path values and buffer growth', () => {
+    // Columns as a CSV row has them (degrees to 8 decimals, metres to 3, logged values shortest),
+    // filled with the sample values in turn; long general-path texts (1e300 is 301 characters)
+    // land mid-row and the buffer grows from 64 KiB several times along the way.
+    const decimals = [8, 8, 3, 3, SHORTEST_DIGITS, SHORTEST_DIGITS, 8, SHORTEST_DIGITS];
+    const rows = Math.ceil(values.length / decimals.length) * 3;
+    const columns = decimals.map((_, k) =>
+      Float64Array.from({ length: rows }, (_, i) => values[(i * 5 + k * 7) % values.length] as number),
+    );
+    for (const likelyDecimals of [0, 3]) {
+      const out = new TextBuffer();
+      const expected: string[] = [];
+      for (let i = 0; i < rows; i++) {
+        out.separatedNumbers(59, columns, decimals, i, likelyDecimals);
+        out.char(10);
+        let line = '';
+        for (let k = 0; k < decimals.length; k++) {
+          const value = (columns[k] as Float64Array)[i] as number;
+          const places = decimals[k] as number;
+          line += `;${places === SHORTEST_DIGITS ? formatDecimal(value) : formatDecimal(value, places)}`;
+        }
+        expected.push(line);
+      }
+      expect(out.byteLength).toBeGreaterThan(4 << 16);
+      const lines = out.toString().split('\n');
+      const wrong = expected.flatMap((line, i) =>
+        lines[i] === line ? [] : [{ row: i, wrote: lines[i], expected: line }],
+      );
+      expect(wrong.slice(0, 5)).toEqual([]);
+    }
+  }, 30_000);
+
+  it("makes room again after a long general-path value that ends at the buffer's end mid-row", () => {
+    // 1e300's shortest form is 301 characters (general path); the fixed values after it need room
+    // that the general path's own reservation does not leave. Filler lengths sweep the free space
+    // at the row's start over the range where that happens with the first 64 KiB buffer.
+    const columns = [
+      Float64Array.of(1e300),
+      Float64Array.of(56.44211067),
+      Float64Array.of(-5.6195545),
+      Float64Array.of(-179.12345678),
+    ];
+    const decimals = [SHORTEST_DIGITS, 8, 8, 8];
+    const row = `;${formatDecimal(1e300)};56.44211067;-5.6195545;-179.12345678`;
+    for (let free = 100; free <= 400; free++) {
+      const out = new TextBuffer();
+      const filler = 'x'.repeat((1 << 16) - free);
+      out.ascii(filler);
+      out.separatedNumbers(59, columns, decimals, 0, 3);
+      expect(out.toString()).toBe(filler + row);
+    }
+  });
+
+  it('keeps what was written when making room ahead, and keeps writing after it', () => {
+    const out = new TextBuffer();
+    out.ascii('Hollowtide,');
+    out.makeRoom(0);
+    out.makeRoom(-5);
+    out.fixed(56.442131, 8);
+    out.makeRoom(3_000_000);
+    out.char(44);
+    for (let i = 0; i < 100_000; i++) out.fixed(i / 8, 3);
+    const expected = `Hollowtide,56.442131,${Array.from({ length: 100_000 }, (_, i) => formatDecimal(i / 8, 3)).join('')}`;
+    expect(out.toString()).toBe(expected);
+  });
+
   it('writes ISO times exactly as formatIsoTime along a track, across days, before 1970 and out of range', () => {
     const times: number[] = [];
     for (let i = 0; i < 100_000; i++) times.push(Date.UTC(2026, 5, 30, 23, 0, 0) + i * 997);
     for (let i = 0; i < 2_000; i++) times.push(Date.UTC(1969, 11, 31, 23, 59, 0) + i * 61);
     times.push(-1, 0, 86_399_999, 86_400_000, 1.5, 1000.25, Number.NaN, 1e20, Date.UTC(9999, 11, 31, 23, 59, 59, 999));
+    // Random instants from 1900 to 2100, every millisecond digit and hour of the day.
+    const next = sequence(20261202);
+    for (let i = 0; i < 20_000; i++) times.push(Math.floor(Date.UTC(1900, 0, 1) + next() * 200 * 365.25 * 86_400_000));
+    for (let i = 0; i < 1_000; i++) times.push(Date.UTC(2026, 11, 2) + i * 3_600_001 + i);
+    times.push(-0, -8.64e15, 8.64e15, 8.64e15 + 1, Number.POSITIVE_INFINITY);
     const out = new TextBuffer();
     for (const t of times) {
       out.isoTime(t);

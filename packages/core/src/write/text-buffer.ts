@@ -126,6 +126,16 @@ export class TextBuffer {
 
   /** Appends `String(value)`, which is also JSON's text for a finite number; `likelyDecimals` as for `shortest`. */
   number(value: number, likelyDecimals = 0): void {
+    // The likely decimals first, in line (the usual case for rounded coordinates and logged depths).
+    const abs = Math.abs(value);
+    if (likelyDecimals > 0 && abs >= 1e-6 && abs < FIFTEEN_DIGITS) {
+      this.#reserve(NUMBER_ROOM);
+      const end = putWithDecimals(this.#view, this.#length, value, abs, likelyDecimals);
+      if (end >= 0) {
+        this.#length = end;
+        return;
+      }
+    }
     if (!this.#shortestDigits(value, likelyDecimals)) this.ascii(String(value));
   }
 

@@ -255,10 +255,13 @@ function writeTimes(out: TextBuffer, p: Piece): void {
       out.char(34);
       out.isoTime(t);
       out.char(34);
-    } else out.ascii('null');
+    } else out.bytes(NULL);
   }
   out.char(93);
 }
+
+/** JSON's `null`, encoded once (written for every fix without a depth). */
+const NULL = TextBuffer.encode('null');
 
 /** The largest time a Date holds, ms either side of 1970 (ECMAScript's TimeClip). */
 const MAX_DATE_MS = 8.64e15;
@@ -273,7 +276,7 @@ function writeDepths(out: TextBuffer, p: Piece): void {
     const d = p.depthM[i] as number;
     // JSON.stringify writes -0 as 0; String(-0) does too.
     if (Number.isFinite(d)) out.number(d, LIKELY_DEPTH_DECIMALS);
-    else out.ascii('null');
+    else out.bytes(NULL);
   }
   out.char(93);
 }
