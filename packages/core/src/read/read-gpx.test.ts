@@ -245,6 +245,29 @@ describe('readGpxEvents', () => {
     expect(collect([text]).tracks.map((t) => t.length)).toEqual([3, 1]);
   });
 
+  it('keeps NaN for the points without a value in a column that only some points fill, on both paths', () => {
+    // 600 points (batches grow past 256 and 512): a heading on every 250th, a speed on the last only
+    const points = Array.from({ length: 600 }, (_, i) => {
+      const time = new Date(Date.UTC(2026, 2, 12, 15, 0, i)).toISOString();
+      const heading = i % 250 === 249 ? `<ll:heading>${i}</ll:heading>` : '';
+      const speed = i === 599 ? '<ll:speed>1.25</ll:speed>' : '';
+      return `<trkpt lat="56.1" lon="-5.2"><time>${time}</time><extensions>${heading}${speed}</extensions></trkpt>`;
+    });
+    const { fast, general } = readBothWays(track(points.join('\n')));
+    expect(fast).toEqual(general);
+    const columns = fast.tracks[0]?.columns;
+    const headings = [...(columns?.headingDeg ?? [])];
+    expect(headings.length).toBe(600);
+    // heading i, normalised to [0, 360): 249 and 499 - 360 = 139
+    expect(headings.flatMap((h, i) => (Number.isNaN(h) ? [] : [[i, h]]))).toEqual([
+      [249, 249],
+      [499, 139],
+    ]);
+    expect([...(columns?.speedMps ?? [])].filter((v) => !Number.isNaN(v))).toEqual([1.25]);
+    expect(columns?.speedMps[599]).toBe(1.25);
+    expect(columns?.depthM.every((v) => Number.isNaN(v))).toBe(true);
+  });
+
   it('reads mutated logger points the same on both paths (seeded random edits)', () => {
     // mulberry32: a small seeded generator, so a failure can be replayed
     let seed = 0x5eed;

@@ -1,6 +1,12 @@
 import { SaxesParser, type SaxesTagPlain } from 'saxes';
 import type { Rejection } from '../model/rejection.js';
-import { type DepthSignDecision, FIX_COLUMN_NAMES, type TrackRole, type Waypoint } from '../model/track.js';
+import {
+  type DepthSignDecision,
+  FIX_COLUMN_NAMES,
+  type FixColumnName,
+  type TrackRole,
+  type Waypoint,
+} from '../model/track.js';
 import { normaliseAzimuthDeg } from '../model/units.js';
 import { collectReadEvents } from './collect-read-events.js';
 import { decodeLogText } from './decode-log-text.js';
@@ -181,17 +187,46 @@ interface GpxHandlers extends XmlElementHandlers {
 const GPX_BATCH_FIRST = 256;
 const GPX_BATCH_MAX = 4096;
 
+/**
+ * The columns a GPX fix may do without, in `storeFix`'s order. A batch gets one when a fix in it
+ * first has a value for it (`NaN` before), so it carries only the columns its fixes use: fewer
+ * arrays to allocate and fill, and to copy (a column left out of a batch reads as `NaN`).
+ */
+const OPTIONAL_COLUMNS = [
+  'depthM',
+  'headingDeg',
+  'speedMps',
+  'slantRangeM',
+  'bearingDeg',
+  'quality',
+  'surfaceLatDeg',
+  'surfaceLonDeg',
+  'surfaceHeadingDeg',
+] as const;
+
+/** A batch with the columns every fix has (time and position). */
 function newGpxBatch(capacity: number): FixBatch {
-  const columns: FixBatch['columns'] = {};
-  for (const name of FIX_COLUMN_NAMES) columns[name] = new Float64Array(capacity);
-  return { count: 0, lines: new Uint32Array(capacity), columns };
+  return {
+    count: 0,
+    lines: new Uint32Array(capacity),
+    columns: {
+      timeMs: new Float64Array(capacity),
+      latDeg: new Float64Array(capacity),
+      lonDeg: new Float64Array(capacity),
+    },
+  };
 }
 
 function growGpxBatch(batch: FixBatch, capacity: number): FixBatch {
-  const grown = newGpxBatch(capacity);
-  grown.count = batch.count;
+  const grown: FixBatch = { count: batch.count, lines: new Uint32Array(capacity), columns: {} };
   grown.lines.set(batch.lines);
-  for (const name of FIX_COLUMN_NAMES) (grown.columns[name] as Float64Array).set(batch.columns[name] as Float64Array);
+  for (const name of FIX_COLUMN_NAMES) {
+    const column = batch.columns[name];
+    if (column === undefined) continue;
+    const copy = new Float64Array(capacity);
+    copy.set(column);
+    grown.columns[name] = copy;
+  }
   return grown;
 }
 
@@ -220,11 +255,14 @@ function createGpxHandlers(file: string, options: ReadOptions): GpxHandlers {
   // Fixes gather in a batch, column by column; any other event first hands on the batch so far (file
   // order kept). A batch handed on is never written again: the queue may hold it a while.
   let batch = newGpxBatch(GPX_BATCH_FIRST);
+  /** The batch's `OPTIONAL_COLUMNS` it has so far. */
+  const optional: (Float64Array | undefined)[] = OPTIONAL_COLUMNS.map(() => undefined);
   const flushFixes = (): void => {
     if (batch.count === 0) return;
     queue.push({ kind: 'fix-batch', batch });
     // as large as the last one grew: a long track fills batches of the largest size one after another
     batch = newGpxBatch(batch.lines.length);
+    optional.fill(undefined);
   };
   const pushEvent = (event: ReadEvent): void => {
     flushFixes();
@@ -235,9 +273,24 @@ function createGpxHandlers(file: string, options: ReadOptions): GpxHandlers {
     const capacity = batch.lines.length;
     if (batch.count === capacity) {
       if (capacity >= GPX_BATCH_MAX) flushFixes();
-      else batch = growGpxBatch(batch, capacity * 2);
+      else {
+        batch = growGpxBatch(batch, capacity * 2);
+        for (let k = 0; k < OPTIONAL_COLUMNS.length; k++)
+          optional[k] = batch.columns[OPTIONAL_COLUMNS[k] as FixColumnName];
+      }
     }
     return batch.count;
+  };
+  /** Value `value` of row `i` into the batch's optional column `k`, adding the column for a first value. */
+  const putOptional = (k: number, i: number, value: number): void => {
+    let column = optional[k];
+    if (column === undefined) {
+      if (Number.isNaN(value)) return;
+      column = new Float64Array(batch.lines.length).fill(Number.NaN);
+      batch.columns[OPTIONAL_COLUMNS[k] as FixColumnName] = column;
+      optional[k] = column;
+    }
+    column[i] = value;
   };
   state.flushFixes = flushFixes;
   const openTrackIfNeeded = () => {
@@ -407,19 +460,19 @@ function createGpxHandlers(file: string, options: ReadOptions): GpxHandlers {
     const surfaceHeading = values[9] as number;
     // into the batch's columns, `NaN` for what the point does not have (as a `Fix` without it)
     const i = reserveFix();
-    const c = batch.columns as Required<FixBatch['columns']>;
+    const c = batch.columns as Required<Pick<FixBatch['columns'], 'timeMs' | 'latDeg' | 'lonDeg'>>;
     c.timeMs[i] = timeMs;
     c.latDeg[i] = latDeg;
     c.lonDeg[i] = lonDeg;
-    c.depthM[i] = depthOf(values);
-    c.headingDeg[i] = Number.isNaN(heading) ? Number.NaN : normaliseAzimuthDeg(heading);
-    c.speedMps[i] = values[3] as number;
-    c.slantRangeM[i] = values[4] as number;
-    c.bearingDeg[i] = Number.isNaN(bearing) ? Number.NaN : normaliseAzimuthDeg(bearing);
-    c.quality[i] = values[6] as number;
-    c.surfaceLatDeg[i] = Math.abs(surfaceLat) <= 90 ? surfaceLat : Number.NaN;
-    c.surfaceLonDeg[i] = Math.abs(surfaceLon) <= 180 ? surfaceLon : Number.NaN;
-    c.surfaceHeadingDeg[i] = Number.isNaN(surfaceHeading) ? Number.NaN : normaliseAzimuthDeg(surfaceHeading);
+    putOptional(0, i, depthOf(values));
+    putOptional(1, i, Number.isNaN(heading) ? Number.NaN : normaliseAzimuthDeg(heading));
+    putOptional(2, i, values[3] as number);
+    putOptional(3, i, values[4] as number);
+    putOptional(4, i, Number.isNaN(bearing) ? Number.NaN : normaliseAzimuthDeg(bearing));
+    putOptional(5, i, values[6] as number);
+    putOptional(6, i, Math.abs(surfaceLat) <= 90 ? surfaceLat : Number.NaN);
+    putOptional(7, i, Math.abs(surfaceLon) <= 180 ? surfaceLon : Number.NaN);
+    putOptional(8, i, Number.isNaN(surfaceHeading) ? Number.NaN : normaliseAzimuthDeg(surfaceHeading));
     batch.lines[i] = line;
     batch.count = i + 1;
   };
