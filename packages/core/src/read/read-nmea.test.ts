@@ -306,9 +306,16 @@ describe('readNmeaEvents', () => {
       `$GPGGA,${'9'.repeat(100)}`, // over 82 characters
       `$GP${'x'.repeat(70_000)}`, // over MAX_LINE_CHARS
       s('GPHDT,12.0,T'),
+      `${s('GPHDT,47.0,T').replace(/\*..$/, '*00')} \t`, // bad checksum, then white space
     ];
-    for (const eol of ['\n', '\r\n', '\r']) {
-      const text = edgeCases.join(eol) + eol;
+    for (const [eol, last] of [
+      ['\n', '\n'],
+      ['\r\n', '\r\n'],
+      ['\r', '\r'],
+      ['\r', ''],
+      ['\r\n', ''],
+    ]) {
+      const text = edgeCases.join(eol) + last;
       const [whole, chunked] = readBothWays(text);
       expect(whole).toEqual(chunked);
       expect(whole.rejections.map((r) => [r.line, r.code])).toEqual([
@@ -320,8 +327,15 @@ describe('readNmeaEvents', () => {
         [21, 'no-fix'],
         [23, 'unparsable-time'],
         [24, 'line-too-long'],
+        [26, 'bad-checksum'],
       ]);
+      expect(whole.rejections.at(-1)?.found).toBe('*00');
       expect(whole.rowCount).toBe(edgeCases.length - 2);
+      // without the line over MAX_LINE_CHARS, the whole text fits one byte window
+      const short = edgeCases.filter((l) => l.length < 1000);
+      const [whole2, chunked2] = readBothWays(short.join(eol) + last);
+      expect(whole2).toEqual(chunked2);
+      expect(whole2.rowCount).toBe(short.length - 2);
     }
   });
 
