@@ -26,14 +26,14 @@ const FEED_CHARS = 1 << 20;
 const MAX_TEXT_CHARS = 4096;
 
 const DEPTH_NAMES = /^(depth|dpt|waterdepth|depthm|depth_m)$/i;
-const HEADING_NAMES = /^(heading|hdg|yaw)$/i;
-const SPEED_NAMES = /^(speed|sog)$/i;
-const RANGE_NAMES = /^(slantrange|slant_range|range)$/i;
-const BEARING_NAMES = /^(bearing|brg)$/i;
+const HEADING_NAMES = /^(heading|hdg|yaw)(_deg)?$/i;
+const SPEED_NAMES = /^(speed|sog)(_mps)?$/i;
+const RANGE_NAMES = /^(slantrange|slant_range|range)(_m)?$/i;
+const BEARING_NAMES = /^(bearing|brg)(_(rel|relative|true|mag|magnetic))?(_deg)?$/i;
 const QUALITY_NAMES = /^(quality|fixquality)$/i;
-const SURFACE_LAT_NAMES = /^(surface|ship|vessel)_?lat(itude)?$/i;
-const SURFACE_LON_NAMES = /^(surface|ship|vessel)_?lon(gitude)?$/i;
-const SURFACE_HEADING_NAMES = /^(surface|ship|vessel)_?heading$/i;
+const SURFACE_LAT_NAMES = /^(surface|ship|vessel)_?lat(itude)?(_deg)?$/i;
+const SURFACE_LON_NAMES = /^(surface|ship|vessel)_?lon(gitude)?(_deg)?$/i;
+const SURFACE_HEADING_NAMES = /^(surface|ship|vessel)_?heading(_deg)?$/i;
 const OPTIONAL_KEYS = [
   'ele',
   'depth',

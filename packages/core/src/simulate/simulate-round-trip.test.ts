@@ -92,3 +92,28 @@ describe('simulateDive (round trip through the CSV reader and resolveTrack)', ()
     expect(worstExcessM).toBeLessThanOrEqual(0);
   });
 });
+
+// Every observation the simulator logs in GPX (its own extension elements) must come back through
+// the GPX reader, as it does through the CSV reader: values to the GPX text's rounding.
+describe('simulated GPX logs (round trip through the GPX reader)', () => {
+  it('reads depth, heading, slant range and bearing of every vehicle fix', () => {
+    const planned = planSeason({ seed: 5, dives: 12, diveMinutes: 6 })[0];
+    if (planned === undefined) throw new Error('no dive planned');
+    const dive = simulateDive(planned.spec);
+    const [file] = writeDiveLogs(dive, 'gpx');
+    const read = readLog({ fileName: file?.name ?? '', content: file?.text ?? '' });
+    const track = read.tracks.find((t) => t.role === 'vehicle');
+    if (track === undefined) throw new Error('the reader found no vehicle track');
+    const log = dive.vehicleLog;
+    expect(track.length).toBe(log.length);
+    const c = track.columns;
+    for (let i = 0; i < log.length; i++) {
+      expect(c.depthM[i]).toBeCloseTo(log.depthM[i] as number, 2);
+      expect(c.headingDeg[i]).toBeCloseTo(log.headingDeg[i] as number, 1);
+      expect(c.slantRangeM[i]).toBeCloseTo(log.slantRangeM[i] as number, 2);
+      // bearings are azimuths: 359.996 is written 360.00 and read back as 0
+      const bearingError = Math.abs((((c.bearingDeg[i] as number) - (log.bearingDeg[i] as number) + 540) % 360) - 180);
+      expect(bearingError).toBeLessThanOrEqual(0.005 + 1e-9);
+    }
+  });
+});
