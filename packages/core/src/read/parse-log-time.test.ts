@@ -71,3 +71,28 @@ describe('parseTimeFields', () => {
     expect(parseTimeFields('25:00:00')).toBeUndefined();
   });
 });
+
+describe('parseDateTime on runs of UTC times (the day is worked out once per date)', () => {
+  it('gives Date.parse’s instant for every time of a run crossing days, months and leap days', () => {
+    // Date.parse (ECMAScript's own reading of the ISO 8601 form) is the reference.
+    const p = new LogTimeParser();
+    let checked = 0;
+    for (let t = Date.UTC(2024, 1, 27, 22); t < Date.UTC(2024, 2, 2, 2); t += 997_003) {
+      const text = new Date(t).toISOString();
+      expect(p.parseDateTime(text)).toMatchObject({ ok: true, timeMs: Date.parse(text) });
+      checked++;
+    }
+    expect(checked).toBeGreaterThan(250);
+    // a date that does not exist is refused even right after a valid day of the same month
+    expect(p.parseDateTime('2025-02-28T23:59:59Z')).toMatchObject({
+      ok: true,
+      timeMs: Date.parse('2025-02-28T23:59:59Z'),
+    });
+    expect(p.parseDateTime('2025-02-29T00:00:00Z')).toMatchObject({ ok: false });
+    expect(p.parseDateTime('2025-04-31T00:00:00Z')).toMatchObject({ ok: false });
+    expect(p.parseDateTime('2025-04-30T00:00:00.5Z')).toMatchObject({
+      ok: true,
+      timeMs: Date.parse('2025-04-30T00:00:00.500Z'),
+    });
+  });
+});
