@@ -19,6 +19,8 @@ const VTG = '$GPVTG,220.86,T,,M,2.550,N,4.724,K,A*34';
 const HDT = '$GPHDT,274.07,T*03';
 const ZDA = '$GPZDA,160012.71,11,03,2004,-1,00*7D';
 const ROT = '$HEROT,0.0,A*2B';
+/** A sentence with its checksum, from the text between `$` and `*`. */
+const s = (body: string) => `$${body}*${computeNmeaChecksum(body)}`;
 // "Widely reproduced tutorial example" (check-values.md, confidence T/U): checksums verified there.
 const GGA_TUTORIAL = '$GPGGA,123519,4807.038,N,01131.000,E,1,08,0.9,545.4,M,46.9,M,,*47';
 const RMC_TUTORIAL = '$GPRMC,123519,A,4807.038,N,01131.000,E,022.4,084.4,230394,003.1,W*6A';
@@ -131,7 +133,6 @@ describe('readNmea', () => {
   });
 
   it('rolls the date over at midnight and dates fixes seen before the first date', () => {
-    const s = (body: string) => `$${body}*${computeNmeaChecksum(body)}`;
     const text = [
       s('GPGGA,235959.00,5907.2000,N,00512.6000,E,1,10,0.9,-20.0,M,40.0,M,,'),
       s('GPZDA,000000.50,01,01,2027,00,00'),
@@ -165,7 +166,6 @@ describe('readNmea', () => {
   });
 
   it('counts every sentence merged into a fix or not used, and reads HDG with and without variation', () => {
-    const s = (body: string) => `$${body}*${computeNmeaChecksum(body)}`;
     const text = [
       s('GPZDA,084600.00,13,03,2026,00,00'),
       s('GPGGA,084600.00,5626.52780,N,00537.16585,W,2,08,1.0,-0.36,M,,M,,'),
@@ -195,7 +195,6 @@ describe('readNmea', () => {
   });
 
   it('rejects bad sentences with their line, reason and message', () => {
-    const s = (body: string) => `$${body}*${computeNmeaChecksum(body)}`;
     const text = [
       '  $GPGGA,084600.00,5626.52780,N,00537.16585,W,2,08,1.0,-0.36,M,,M,,*78',
       s('GPGGA,084601.00,5626.52780,N,00537.16585,W,2,08,1.0,-0.36,M,,M,,'),
@@ -262,7 +261,6 @@ function readBothWays(text: string, chunkChars = 7): [LogReadResult, LogReadResu
 }
 
 describe('readNmeaEvents', () => {
-  const s = (body: string) => `$${body}*${computeNmeaChecksum(body)}`;
   /** One fix a second from `startSecond` on: ZDA, GGA, HDT, like the season's vehicle logs. */
   const fixLines = (startSecond: number, count: number): string[] => {
     const lines: string[] = [];
